@@ -473,7 +473,7 @@ def common_faces(diagram: Diagram, first: int, second: int) -> list[int]:
 
     >>> from movies.diagram.constructors import unlink
     >>> common_faces(unlink(2), 1, 2)
-    [1]
+    [2]
     """
     _check_edge(diagram, first)
     _check_edge(diagram, second)
@@ -556,7 +556,9 @@ def saddle(
                 arriving.add(ends[second][0])
         crossings, signs = reencode(crossings, arriving)
         signs = {**diagram.signs, **signs}
-    hints = namer.hints(cut=frozenset({face}), side_alias=alias)
+    # the band's strip joins the faces beyond the two edges (needed when a circle's name goes)
+    beyond = {diagram.side_face[Side(first, s1).other()], diagram.side_face[Side(second, s2).other()]}
+    hints = namer.hints(cut=frozenset({face}), side_alias=alias, absorb={max(beyond): min(beyond)})
     new = _rebuild(diagram, crossings, signs, loops, hints)
     return SaddleResult(new, face, respects, effect, before, tuple(sorted(new.components)))
 

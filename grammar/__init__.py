@@ -1,0 +1,1 @@
+"""The grammars of the notation, shipped as package data (``movies.grammar``)."""

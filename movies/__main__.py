@@ -1,0 +1,5 @@
+"""``python -m movies`` is the ``movies`` command."""
+
+from movies.cli.main import main
+
+raise SystemExit(main())

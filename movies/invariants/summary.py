@@ -1,0 +1,69 @@
+"""All the classical invariants of a diagram at once, as plain data.
+
+This is what ``movies invariants`` prints; it is also a convenient single call from Python.
+
+>>> from movies.diagram.pd import from_pd
+>>> facts = classical_invariants(from_pd([[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]))
+>>> facts["writhe"], facts["signature"], facts["jones"]
+(3, -2, [[1, 1], [3, 1], [4, -1]])
+"""
+
+from __future__ import annotations
+
+from fractions import Fraction
+
+from movies.diagram.model import Diagram
+from movies.invariants.alexander import alexander_polynomial, determinant
+from movies.invariants.jones import jones_polynomial
+from movies.invariants.signature import signature
+
+
+def exponent_json(exponent: Fraction) -> int | float:
+    """An exponent for JSON: an int when whole, else the exact half (a binary fraction).
+
+    >>> exponent_json(Fraction(3)), exponent_json(Fraction(-1, 2))
+    (3, -0.5)
+    """
+    exponent = Fraction(exponent)
+    if exponent.denominator == 1:
+        return int(exponent)
+    if exponent.denominator == 2:
+        return exponent.numerator / 2
+    raise ValueError(f"exponent {exponent} is not a half-integer")  # pragma: no cover
+
+
+def polynomial_terms(polynomial) -> list[list]:
+    """[[exponent, coefficient], ...] in increasing exponent order."""
+    return [[exponent_json(e), c] for e, c in polynomial.terms()]
+
+
+def classical_invariants(diagram: Diagram) -> dict:
+    """Components, crossings, writhe, Jones, signature, linking matrix, Alexander, determinant.
+
+    Parameters
+    ----------
+    diagram : Diagram
+        Any diagram; the empty diagram has no Jones polynomial and is refused.
+
+    Returns
+    -------
+    dict
+        Plain data: polynomials as ``[[exponent, coefficient], ...]``.
+
+    >>> from movies.diagram.pd import from_pd
+    >>> classical_invariants(from_pd([[4, 1, 3, 2], [2, 3, 1, 4]]))["linking_matrix"]
+    [[0, -1], [-1, 0]]
+    """
+    alexander = alexander_polynomial(diagram)
+    return {
+        "components": diagram.component_count(),
+        "crossings": diagram.crossing_count(),
+        "writhe": diagram.writhe(),
+        "seifert_circles": diagram.seifert_circle_count(),
+        "split_pieces": diagram.piece_count(),
+        "jones": polynomial_terms(jones_polynomial(diagram)),
+        "signature": signature(diagram),
+        "linking_matrix": diagram.linking_matrix(),
+        "alexander": polynomial_terms(alexander),
+        "determinant": determinant(diagram),
+    }

@@ -1,0 +1,1 @@
+"""The text notations: one-line diagrams (:mod:`movies.language.spec`)."""

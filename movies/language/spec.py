@@ -1,0 +1,495 @@
+"""Reading a diagram written in one line of text, the notation of ``grammar/diagram.lark``.
+
+The notation (``grammar/README.md``, "Writing a diagram", has the full reference):
+
+================================  ============================================================
+``3_1``, ``11n_34``, ``L7a1{0}``  a knot or oriented link from the tables, by name
+``unknot``, ``unlink(3)``         one crossingless circle, n circles side by side
+``empty``                         the empty diagram (no components)
+``braid[1, 1, -2]``               the closure of a braid (strands: largest generator + 1)
+``braid(4)[1, 2]``                the same with the number of strands given
+``torus(2, 5)``                   the torus link T(2, 5)
+``pd[[1,5,2,4],...]``             a PD code; ``pd{{4, 1, 3, 2}, ...}`` also reads
+``mirror(X)``                     the mirror image
+``reverse(X)``, ``reverse(X, 2)`` every component, or the listed ones, reversed
+``X # Y``, ``X #(3, 5) Y``        connected sum, at the smallest edges or at edges 3 of X, 5 of Y
+``X + Y``, ``X +(2, 1) Y``        disjoint union, side by side or Y's face 1 opening onto X's face 2
+``( ... )``                       grouping; ``#`` binds tighter than ``+``
+================================  ============================================================
+
+Errors carry the line and column of the spot: :class:`SpecSyntaxError` for text the grammar
+cannot read (or a word it does not know), and located versions of the constructors' errors (:class:`SpecTableError` for an
+unknown table name, ...) for text that reads but names something that does not exist. Each has
+``context()``, the offending line with a caret under the spot.
+
+>>> parse_diagram("3_1 # mirror(3_1)").writhe()
+0
+>>> parse_diagram("torus(2, 5) + unknot").component_count()
+2
+>>> try:
+...     parse_diagram("braid[1, 2")
+... except SpecSyntaxError as err:
+...     print(err)
+...     print(err.context())
+'[' is never closed (line 1, column 6)
+braid[1, 2
+     ^
+"""
+
+from __future__ import annotations
+
+import difflib
+import functools
+import importlib.resources
+import pathlib
+import re
+
+from lark import Lark, Token, Tree
+from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput, UnexpectedToken
+
+from movies.diagram import constructors
+from movies.diagram.constructors import GeneratorError
+from movies.diagram.model import Diagram
+from movies.diagram.pd import from_pd
+from movies.diagram.tables import canonical_name
+from movies.errors import BraidError, DiagramError, InputError, MoviesError, PDCodeError, TableError
+
+__all__ = [
+    "Located",
+    "SpecSyntaxError",
+    "SpecInputError",
+    "SpecTableError",
+    "SpecBraidError",
+    "SpecPDCodeError",
+    "SpecDiagramError",
+    "KEYWORDS",
+    "diagram_grammar",
+    "diagram_parser",
+    "parse_diagram",
+]
+
+#: the words of the notation
+KEYWORDS = ("unknot", "empty", "unlink", "braid", "torus", "pd", "mirror", "reverse")
+
+
+# ---------------------------------------------------------------------- errors
+
+
+class Located(MoviesError):
+    """Where in the text an error is: ``line`` and ``column`` (from 1), and the ``text``.
+
+    ``reason`` is the message without the place; ``str()`` adds the place.
+    """
+
+    def __init__(self, reason: str, text: str, line: int, column: int) -> None:
+        super().__init__(f"{reason} (line {line}, column {column})")
+        self.reason = reason
+        self.text = text
+        self.line = line
+        self.column = column
+
+    def context(self, span: int = 40) -> str:
+        """The offending line (at most ``span`` characters either side) and a caret under the spot.
+
+        >>> err = SpecSyntaxError("unexpected ']'", "3_1 +\\nbraid[1]]", 2, 9)
+        >>> print(err.context())
+        braid[1]]
+                ^
+        """
+        lines = self.text.split("\n")
+        line = lines[self.line - 1] if 0 < self.line <= len(lines) else ""
+        spot = self.column - 1
+        start = max(0, spot - span)
+        before, after = line[start:spot], line[spot:spot + span]
+        pad = "".join("\t" if ch == "\t" else " " for ch in before)
+        return f"{before}{after}\n{pad}^"
+
+
+class SpecSyntaxError(Located, InputError):
+    """Text that the diagram notation cannot read."""
+
+
+class SpecInputError(Located, InputError):
+    """Text that reads but asks for something that cannot be made (``unlink(-1)``, ...)."""
+
+
+class SpecTableError(Located, TableError):
+    """A table name in the text that the tables do not have."""
+
+
+class SpecBraidError(Located, BraidError):
+    """A braid word in the text with a generator or strand count that cannot be used."""
+
+
+class SpecPDCodeError(Located, PDCodeError):
+    """A PD code in the text that is not the code of a diagram."""
+
+
+class SpecDiagramError(Located, DiagramError):
+    """An edge, face or component number in the text that its diagram does not have."""
+
+
+_LOCATED = (
+    (TableError, SpecTableError),
+    (BraidError, SpecBraidError),
+    (PDCodeError, SpecPDCodeError),
+    (DiagramError, SpecDiagramError),
+    (MoviesError, SpecInputError),
+)
+
+
+def _located(err: MoviesError, text: str, line: int, column: int) -> Located:
+    for base, located in _LOCATED:
+        if isinstance(err, base):
+            return located(str(err), text, line, column)
+    raise TypeError(f"not an error of the package: {err!r}")  # pragma: no cover
+
+
+# ---------------------------------------------------------------------- the parser
+
+
+def diagram_grammar() -> str:
+    """The text of the grammar, read from the installed package data ``movies.grammar``.
+
+    >>> diagram_grammar().count("-> connected_sum")
+    1
+    """
+    try:
+        resource = importlib.resources.files("movies.grammar") / "diagram.lark"
+    except ModuleNotFoundError:
+        # a source checkout run in place: the grammar folder sits beside the package
+        resource = pathlib.Path(__file__).resolve().parents[2] / "grammar" / "diagram.lark"
+    return resource.read_text(encoding="utf-8")
+
+
+@functools.cache
+def diagram_parser() -> Lark:
+    """The LALR parser of the notation, built once.
+
+    >>> diagram_parser().parse("unknot").children[0].data
+    'unknot'
+    """
+    return Lark(diagram_grammar(), parser="lalr", propagate_positions=True, maybe_placeholders=True)
+
+
+def parse_diagram(text: str) -> Diagram:
+    """The diagram that ``text`` describes.
+
+    Parameters: ``text``, one diagram in the notation of the module docstring (line breaks
+    allowed). Returns a new :class:`~movies.diagram.model.Diagram`. Raises
+    :class:`SpecSyntaxError` for text that does not read, and the located errors
+    (:class:`SpecTableError`, :class:`SpecBraidError`, :class:`SpecPDCodeError`,
+    :class:`SpecDiagramError`, :class:`SpecInputError`) for text that reads but names what
+    does not exist; all carry ``line``, ``column`` and ``context()``.
+
+    >>> parse_diagram("braid(3)[1, -2, 1, -2]").crossing_count()
+    4
+    >>> parse_diagram("3_99")
+    Traceback (most recent call last):
+    ...
+    movies.language.spec.SpecTableError: no knot named '3_99': the table's 3_… run from 3_1 to 3_1 (line 1, column 1)
+    """
+    if not isinstance(text, str):
+        raise InputError(f"a diagram is written as text, not {type(text).__name__}")
+    try:
+        tree = diagram_parser().parse(text)
+    except UnexpectedInput as err:
+        raise _syntax_error(text, err) from None
+    return _Builder(text).build(tree.children[0])
+
+
+# ---------------------------------------------------------------------- syntax errors
+
+# Common mistakes, matched by the parser state they fail in (lark's ``match_examples``).
+_ATOMS = ("4_1", "unknot", "empty", "unlink(2)", "braid[1]", "braid(3)[1]", "torus(2, 3)",
+          "pd[[1,1,2,2]]", "mirror(4_1)", "reverse(4_1)", "reverse(4_1, 1)", "(4_1)")
+_TWO_IN_A_ROW = "two diagrams in a row need '+' (disjoint union) or '#' (connected sum) between them"
+_EXAMPLES: dict[str, list[str]] = {
+    "write a diagram, such as 3_1, unknot, braid[1, 1, 1] or torus(2, 5)":
+        ["", "+ 3_1", "# 3_1", ", 3_1", "1"],
+    "a diagram must follow '+' or '#'":
+        ["3_1 +", "3_1 #", "3_1 + #", "3_1 # +", "3_1 #(1, 2)", "3_1 +(1, 2)", "3_1 # ,", "3_1 # 1"],
+    _TWO_IN_A_ROW:
+        [f"{before}{atom} {other}{after}" for atom in _ATOMS for other in ("3_1", "unknot", "(3_1)")
+         for before, after in (("", ""), ("(", ")"), ("mirror(", ")"), ("reverse(", ")"))],
+    "unlink takes the number of circles in parentheses, as in unlink(3)":
+        ["unlink", "unlink 3", "unlink()", "unlink(3, 4)", "unlink(a)"],
+    "torus takes two integers in parentheses, as in torus(2, 5)":
+        ["torus", "torus 2, 5", "torus()", "torus(2)", "torus(2 5)", "torus(2,)", "torus(2, 3, 4)"],
+    "a braid word is a list of nonzero integers in square brackets, as in braid[1, -2, 1] "
+    "or braid(4)[1, 2] with the number of strands":
+        ["braid", "braid 1", "braid(1, 2)", "braid(3)", "braid(3) 1", "braid[1, x]", "braid[1,, 2]",
+         "braid()", "braid[a]", "braid(3)(1)"],
+    "a PD code is a list of crossings of four labels each, as in pd[[1,5,2,4],[3,1,4,6],[5,3,6,2]]":
+        ["pd", "pd 1", "pd[1, 2]", "pd[[1, 2], 3]", "pd[[1, x]]", "pd[[1,2,3,4] [5,6,7,8]]", "pd[[]]",
+         "pd[[1,2,3,4],]", "pd{1}", "pd(1)"],
+    "mirror takes one diagram in parentheses, as in mirror(3_1)":
+        ["mirror", "mirror 3_1", "mirror()", "mirror(3_1, 1)"],
+    "reverse takes a diagram and, to reverse only some components, their numbers, "
+    "as in reverse(L4a1, 2)":
+        ["reverse", "reverse 3_1", "reverse()", "reverse(3_1, )", "reverse(3_1, x)",
+         "reverse(3_1, 1 2)"],
+    "where two diagrams meet is given by two integers, as in 3_1 #(1, 4) 4_1":
+        ["3_1 #(1) 4_1", "3_1 #(1 2) 4_1", "3_1 #(1, ) 4_1", "3_1 #(1, 2, 3) 4_1", "3_1 +(1) 4_1",
+         "3_1 +(1 2) 4_1", "3_1 +(1, 2, 3) 4_1", "3_1 #(1, x) 4_1", "3_1 +(1, x) 4_1"],
+}
+
+#: characters the notation uses; any other one is reported as it is, without a hint
+_ALPHABET = re.compile(r"[A-Za-z0-9_+#,()\[\]{}-]")
+_ATOM_STARTS = {"TABLE_NAME", "WORD", "LPAR"} | {word.upper() for word in KEYWORDS}
+#: labels that fit only some of the tokens that can fail in their state
+_ONLY_BEFORE = {_TWO_IN_A_ROW: _ATOM_STARTS}
+_NAME_CHAR = re.compile(r"[A-Za-z0-9_]")
+_OPENERS = {"(": ")", "[": "]", "{": "}"}
+_CLOSERS = {close: open_ for open_, close in _OPENERS.items()}
+_DESCRIPTIONS = {"TABLE_NAME": "a table name", "INT": "an integer", "WORD": "a word", "$END": "the end of the text"}
+
+
+def _position(text: str, offset: int) -> tuple[int, int]:
+    """Line and column (from 1) of a character offset."""
+    line = text.count("\n", 0, offset) + 1
+    return line, offset - (text.rfind("\n", 0, offset) + 1) + 1
+
+
+def _end_offset(text: str) -> int:
+    """Just after the last character that is not a blank."""
+    return len(text.rstrip())
+
+
+def _bracket_problem(text: str, offset: int, at_end: bool) -> tuple[str, int] | None:
+    """A mismatched, unopened or unclosed bracket in ``text[:offset]`` (and at ``offset``).
+
+    Returns the reason and the offset to point at: the closing bracket that is wrong, or the
+    opening bracket that the end of the text leaves open.
+    """
+    stack: list[tuple[str, int]] = []
+    for index, char in enumerate(text[:offset + 1]):
+        if char in _OPENERS and index < offset:
+            stack.append((char, index))
+        elif char in _CLOSERS:
+            if not stack:
+                return f"'{char}' closes nothing that was opened", index
+            opener, where = stack[-1]
+            if _OPENERS[opener] != char:
+                line, column = _position(text, where)
+                return f"'{char}' does not close the '{opener}' at line {line}, column {column}", index
+            stack.pop()
+    if at_end and stack:
+        opener, where = stack[-1]
+        return f"'{opener}' is never closed", where
+    return None
+
+
+def _describe(names: set[str]) -> str:
+    """Readable names for a set of terminal names."""
+    parser = diagram_parser()
+    names = set(names)
+    words = []
+    if "TABLE_NAME" in names:
+        names -= _ATOM_STARTS
+        words.append("a diagram")
+    for name in sorted(names):
+        if name in _DESCRIPTIONS:
+            words.append(_DESCRIPTIONS[name])
+        else:
+            words.append(f"'{parser.get_terminal(name).pattern.value}'")
+    words.sort(key=lambda w: (w == "the end of the text", w))
+    if not words:
+        return "nothing more"
+    if len(words) == 1:
+        return words[0]
+    return ", ".join(words[:-1]) + " or " + words[-1]
+
+
+def _unknown_word(word: str) -> str:
+    close = difflib.get_close_matches(word.lower(), KEYWORDS, n=2, cutoff=0.6)
+    hint = f"; did you mean {' or '.join(close)}?" if close else (
+        f"; the words are {', '.join(KEYWORDS)}, and table names look like 3_1 or L7a1{{0}}")
+    return f"'{word}' is not a word of the notation{hint}"
+
+
+def _glued_name(text: str, offset: int) -> SpecTableError | None:
+    """A run of letters and digits that the lexer split in two (``3_1x``), read as a table name."""
+    if not (0 < offset < len(text) and _NAME_CHAR.match(text[offset - 1]) and _NAME_CHAR.match(text[offset])):
+        return None
+    start, end = offset, offset
+    while start > 0 and _NAME_CHAR.match(text[start - 1]):
+        start -= 1
+    while end < len(text) and _NAME_CHAR.match(text[end]):
+        end += 1
+    try:
+        canonical_name(text[start:end])
+    except TableError as err:
+        line, column = _position(text, start)
+        return SpecTableError(str(err), text, line, column)
+    return None  # pragma: no cover - a whole table name is one token
+
+
+def _accepts(text: str) -> set[str]:
+    """The terminals the parser would take at the spot where ``text`` stops reading.
+
+    LALR tables merge look-aheads across contexts, so the error's own list can name tokens
+    that would fail a step later; feeding each candidate from the state just before the bad
+    token tells the truth.
+    """
+    interactive = diagram_parser().parse_interactive(text)
+    tokens = interactive.lexer_thread.lex(interactive.parser_state)
+    while True:
+        try:
+            token = next(tokens)
+        except StopIteration:
+            break
+        except UnexpectedInput:  # the lexer found no token here: the state is as it was
+            return set(interactive.accepts())
+        before = interactive.copy()
+        try:
+            interactive.feed_token(token)
+        except UnexpectedInput:
+            return set(before.accepts())
+    before = interactive.copy()
+    try:
+        interactive.feed_eof()
+    except UnexpectedInput:
+        return set(before.accepts())
+    return set()  # pragma: no cover - the text parses
+
+
+def _syntax_error(text: str, err: UnexpectedInput) -> Located:
+    at_end = isinstance(err, UnexpectedEOF) or (
+        isinstance(err, UnexpectedToken) and err.token.type == "$END")
+    if at_end:
+        offset = _end_offset(text)
+        what, kind = "unexpected end of text", "$END"
+    elif isinstance(err, UnexpectedCharacters):
+        offset = err.pos_in_stream
+        what, kind = f"unexpected character '{err.char}'", None
+    else:
+        offset = err.token.start_pos
+        what, kind = f"unexpected '{err.token}'", err.token.type
+    line, column = _position(text, offset)
+    history = getattr(err, "token_history", None) or []
+    bracket = _bracket_problem(text, offset, at_end)
+    if bracket:
+        reason, where = bracket
+        return SpecSyntaxError(reason, text, *_position(text, where))
+    glued = _glued_name(text, offset)
+    if glued is not None:
+        return glued
+    if history and history[-1] is not None and history[-1].type == "WORD":
+        word = history[-1]
+        return SpecSyntaxError(_unknown_word(str(word)), text, word.line, word.column)
+    foreign = isinstance(err, UnexpectedCharacters) and not _ALPHABET.fullmatch(err.char)
+    # lark 1.3 cannot report a same-state example with other accepts (it formats the state
+    # with %d), so examples are matched by parser state alone
+    hint = None if foreign or err.state is None else err.match_examples(
+        diagram_parser().parse, _EXAMPLES, use_accepts=False)
+    if hint in _ONLY_BEFORE and kind not in _ONLY_BEFORE[hint]:
+        hint = None
+    reason = f"{what}: {hint}" if hint else f"{what}; expected {_describe(_accepts(text))}"
+    return SpecSyntaxError(reason, text, line, column)
+
+
+# ---------------------------------------------------------------------- building the diagram
+
+
+class _Builder:
+    """Turns a parse tree into a diagram, pointing errors at the part of the text at fault."""
+
+    def __init__(self, text: str) -> None:
+        self.text = text
+
+    def fail(self, err: MoviesError, where) -> Located:
+        return _located(err, self.text, where.line, where.column)
+
+    def where(self, node):
+        return node.meta if isinstance(node, Tree) else node
+
+    def build(self, node) -> Diagram:
+        method = getattr(self, f"_{node.data}")
+        try:
+            return method(node, *node.children)
+        except Located:
+            raise
+        except MoviesError as err:
+            raise self.fail(err, self.where(node)) from None
+
+    def _table(self, node, name: Token) -> Diagram:
+        return constructors.from_table(str(name))
+
+    def _unknot(self, node) -> Diagram:
+        return constructors.unknot()
+
+    def _empty(self, node) -> Diagram:
+        return constructors.empty()
+
+    def _word(self, node, word: Token) -> Diagram:
+        raise SpecSyntaxError(_unknown_word(str(word)), self.text, word.line, word.column)
+
+    def _unlink(self, node, count: Token) -> Diagram:
+        if int(count) < 0:
+            raise SpecInputError(f"an unlink has 0 or more circles, not {count}", self.text, count.line, count.column)
+        return constructors.unlink(int(count))
+
+    def _torus(self, node, p: Token, q: Token) -> Diagram:
+        return constructors.torus_link(int(p), int(q))
+
+    def _braid(self, node, strands: Tree | None, word: Tree) -> Diagram:
+        generators = [int(token) for token in word.children]
+        count = int(strands.children[0]) if strands is not None else None
+        try:
+            return constructors.from_braid(generators, count)
+        except GeneratorError as err:
+            raise self.fail(err, word.children[err.position - 1]) from None
+        except BraidError as err:
+            raise self.fail(err, strands.children[0] if strands is not None else node.meta) from None
+
+    def _pd(self, node, code: Tree) -> Diagram:
+        rows = []
+        for index, crossing in enumerate(code.children, start=1):
+            if len(crossing.children) != 4:
+                raise SpecPDCodeError(
+                    f"crossing {index} of the PD code has {len(crossing.children)} label"
+                    f"{'' if len(crossing.children) == 1 else 's'}, not 4",
+                    self.text, crossing.meta.line, crossing.meta.column)
+            rows.append([int(label) for label in crossing.children])
+        return from_pd(rows)
+
+    def _mirror(self, node, inner) -> Diagram:
+        return constructors.mirror(self.build(inner))
+
+    def _reverse(self, node, inner, *numbers: Token) -> Diagram:
+        diagram = self.build(inner)
+        for number in numbers:
+            if int(number) not in diagram.components:
+                raise SpecDiagramError(
+                    f"component {number} is not in the diagram "
+                    f"(components: {sorted(diagram.components)})", self.text, number.line, number.column)
+        return constructors.reverse(diagram, [int(n) for n in numbers] if numbers else None)
+
+    def _union(self, node, left, places: Tree | None, right) -> Diagram:
+        first, second = self.build(left), self.build(right)
+        if places is None:
+            return constructors.disjoint_union(first, second)
+        face, other = places.children
+        self.check_name(first.faces, face, "face", "first")
+        self.check_name(second.faces, other, "face", "second")
+        return constructors.disjoint_union(first, second, int(face), int(other))
+
+    def _connected_sum(self, node, left, places: Tree | None, right) -> Diagram:
+        first, second = self.build(left), self.build(right)
+        for diagram, side, which in ((first, left, "first"), (second, right, "second")):
+            if diagram.is_empty():
+                raise SpecDiagramError(f"the {which} diagram of the connected sum is empty; "
+                                       "a connected sum needs an edge of each",
+                                       self.text, self.where(side).line, self.where(side).column)
+        if places is None:
+            return constructors.connected_sum(first, second)
+        edge, other = places.children
+        self.check_name(first.edges(), edge, "edge", "first")
+        self.check_name(second.edges(), other, "edge", "second")
+        return constructors.connected_sum(first, second, int(edge), int(other))
+
+    def check_name(self, names, token: Token, kind: str, which: str) -> None:
+        if int(token) not in names:
+            raise SpecDiagramError(f"{kind} {token} is not in the {which} diagram "
+                                   f"({kind}s: {sorted(names)})", self.text, token.line, token.column)

@@ -1,0 +1,127 @@
+"""The command line: what it prints, its JSON, and its exit codes."""
+
+import json
+import subprocess
+import sys
+from pathlib import Path
+
+import pytest
+
+from movies.cli.main import main
+
+ROOT = Path(__file__).resolve().parents[1]
+
+
+def run(capsys, *argv):
+    code = main(list(argv))
+    out, err = capsys.readouterr()
+    return code, out, err
+
+
+def test_json_of_the_trefoil(capsys):
+    code, out, err = run(capsys, "invariants", "--pd", "[[1,5,2,4],[3,1,4,6],[5,3,6,2]]", "--json")
+    assert code == 0 and err == ""
+    facts = json.loads(out)
+    assert facts["components"] == 1 and facts["crossings"] == 3 and facts["writhe"] == 3
+    # KnotInfo column jones_polynomial of 3_1: t+ t^3-t^4
+    assert facts["jones"] == [[1, 1], [3, 1], [4, -1]]
+    # KnotInfo column signature of 3_1
+    assert facts["signature"] == -2
+    assert facts["linking_matrix"] == [[0]]
+    # KnotInfo column alexander_polynomial of 3_1: 1-t+ t^2
+    assert facts["alexander"] == [[0, 1], [1, -1], [2, 1]]
+    # KnotInfo column determinant of 3_1
+    assert facts["determinant"] == 3
+
+
+def test_every_way_of_naming_the_trefoil_agrees(capsys):
+    outputs = []
+    for argv in (
+        ["3_1"],
+        ["--braid", "[1, 1, 1]"],
+        ["--braid", "[1, 1, 1]", "--strands", "2"],
+        ["torus(2, 3)"],
+        ["pd[[1,5,2,4],[3,1,4,6],[5,3,6,2]]"],
+    ):
+        code, out, _ = run(capsys, "invariants", *argv, "--json")
+        assert code == 0
+        outputs.append(json.loads(out))
+    assert all(o == outputs[0] for o in outputs)
+
+
+def test_half_integer_jones_exponents_of_a_link(capsys):
+    code, out, _ = run(capsys, "invariants", "L2a1{1}", "--json")
+    facts = json.loads(out)
+    # LinkInfo column jones_polynomial of L2a1{1}: -x-x^5 with x = t^(1/2)
+    assert facts["jones"] == [[0.5, -1], [2.5, -1]]
+    # LinkInfo column linking_matrix of L2a1{1}
+    assert facts["linking_matrix"] == [[0, 1], [1, 0]]
+
+
+def test_readable_table(capsys):
+    code, out, _ = run(capsys, "invariants", "3_1 # mirror(3_1)")
+    assert code == 0
+    lines = out.splitlines()
+    assert lines[0] == "3_1 # mirror(3_1)"
+    rows = {line.split()[0]: line for line in lines[1:]}
+    assert "6   (writhe 0, 3 Seifert circles, 1 split piece)" in rows["crossings"]
+    # from memory: the square knot has signature 0 and determinant 9
+    assert rows["signature"].split()[-1] == "0"
+    assert rows["determinant"].split()[-1] == "9"
+
+
+def test_spec_from_a_file_with_comments(capsys, tmp_path):
+    spec = tmp_path / "k.txt"
+    spec.write_text("% a comment\nmirror(3_1)  % the left-handed trefoil\n")
+    code, out, _ = run(capsys, "invariants", "--file", str(spec), "--json")
+    assert code == 0
+    # KnotInfo column signature of 3_1, negated for the mirror image
+    assert json.loads(out)["signature"] == 2
+
+
+@pytest.mark.parametrize(
+    "argv, fragment",
+    [
+        (["--pd", "[[1,2,3,4]]"], "occur once each"),
+        (["--pd", "[[1,1,2,2,2]]"], "5 labels"),
+        (["--pd", "[[1,3,2,4],[2,4,1,3]]"], "not planar"),
+        (["--pd", "[]"], "empty"),
+        (["--pd", "[[1,2"], "not valid JSON"),
+        (["--braid", "[1, 0]"], "nonzero"),
+        (["--braid", "[1, 5]", "--strands", "3"], "position 2"),
+        (["no_such_knot"], "no_such_knot"),
+        (["3_2"], "3_2"),
+        (["braid[1, 1"], "never closed"),
+        (["--file", "/nonexistent/k.txt"], "cannot read"),
+        (["3_1", "--pd", "[[1,5,2,4],[3,1,4,6],[5,3,6,2]]"], "exactly one diagram"),
+        ([], "exactly one diagram"),
+    ],
+)
+def test_bad_input_exits_2_with_one_reason(capsys, argv, fragment):
+    code, out, err = run(capsys, "invariants", *argv)
+    assert code == 2
+    assert out == ""
+    assert err.startswith("movies: error: ")
+    assert fragment in err
+    assert "Traceback" not in err
+
+
+def test_usage_errors_exit_2(capsys):
+    with pytest.raises(SystemExit) as stop:
+        main(["invariants", "--strands", "x"])
+    assert stop.value.code == 2
+
+
+def test_module_entry_point_and_console_script():
+    result = subprocess.run(
+        [sys.executable, "-m", "movies", "invariants", "4_1", "--json"],
+        capture_output=True, text=True, cwd=ROOT, check=False,
+    )
+    assert result.returncode == 0, result.stderr
+    # KnotInfo column jones_polynomial of 4_1: t^(-2)-t^(-1)+ 1-t+ t^2
+    assert json.loads(result.stdout)["jones"] == [[-2, 1], [-1, -1], [0, 1], [1, -1], [2, 1]]
+    broken = subprocess.run(
+        [sys.executable, "-m", "movies", "invariants", "--pd", "[[1,2,3,4]]"],
+        capture_output=True, text=True, cwd=ROOT, check=False,
+    )
+    assert broken.returncode == 2 and "Traceback" not in broken.stderr
