@@ -1,7 +1,8 @@
 """The ``movies`` command: argument parsing, dispatch, and the one place errors become exit codes.
 
-Exit codes: 0 success; 2 input that cannot be read (unparsable, invalid PD code, unknown
-name); 130 interrupted. Errors are one line on standard error, never a traceback.
+Exit codes: 0 success (for ``check``: the movie is verified); 1 a movie that is not verified;
+2 input that cannot be read (missing file, unparsable, invalid PD code, unknown name);
+3 an internal error (a bug: please report it); 130 interrupted. Errors are one line on standard error, never a traceback.
 
 >>> main(["invariants", "--pd", "[[1,5,2,4],[3,1,4,6],[5,3,6,2]]", "--json"])  # doctest: +ELLIPSIS
 {"components": 1, "crossings": 3, "writhe": 3, ...}
@@ -12,13 +13,16 @@ from __future__ import annotations
 
 import argparse
 import json
+import os
 import sys
 from typing import Sequence
 
 from movies.errors import InputError, MoviesError
 
 EXIT_OK = 0
+EXIT_NOT_VERIFIED = 1
 EXIT_INPUT = 2
+EXIT_INTERNAL = 3
 EXIT_INTERRUPTED = 130
 
 
@@ -55,6 +59,29 @@ def build_parser() -> argparse.ArgumentParser:
     inv.add_argument("--file", metavar="PATH", help="read SPEC from a file")
     inv.add_argument("--json", action="store_true", help="print one JSON object instead of the table")
     inv.set_defaults(run=_run_invariants)
+
+    chk = commands.add_parser(
+        "check",
+        help="check a movie: every step, the surface, every claim",
+        description="Check a movie file. Exit 0 when it is verified, 1 for any other verdict, 2 when "
+        "the file cannot be read.",
+    )
+    chk.add_argument("file", metavar="FILE", help="the movie file")
+    chk.add_argument("--json", action="store_true", help="print one JSON object instead of the report")
+    chk.add_argument("--budget", type=float, metavar="SECONDS", default=None,
+                     help="time each search may take (default 5; a movie's own 'budget' statement wins)")
+    chk.set_defaults(run=_run_check)
+
+    frm = commands.add_parser(
+        "frames",
+        help="print a frame of a movie with all its names",
+        description="Print the diagram after step N of a movie (0 is the first frame) with every name, "
+        "so that the next step can be written.",
+    )
+    frm.add_argument("file", metavar="FILE", help="the movie file")
+    frm.add_argument("--at", type=int, metavar="N", default=None, help="the step (default: the last frame)")
+    frm.add_argument("--budget", type=float, metavar="SECONDS", default=None, help="as for check")
+    frm.set_defaults(run=_run_frames)
     return parser
 
 
@@ -108,6 +135,48 @@ def _run_invariants(args: argparse.Namespace) -> int:
     return EXIT_OK
 
 
+def _read_movie(path: str):
+    from movies.language.movie import parse_movie
+
+    try:
+        with open(path, encoding="utf-8") as handle:
+            text = handle.read()
+    except OSError as err:
+        raise InputError(f"cannot read {path}: {err.strerror}") from None
+    return parse_movie(text)
+
+
+def _checked(args: argparse.Namespace):
+    from movies.checker.replay import check_movie
+    from movies.checker.search import DEFAULT_BUDGET
+
+    movie = _read_movie(args.file)
+    return check_movie(movie, DEFAULT_BUDGET if args.budget is None else args.budget)
+
+
+def _run_check(args: argparse.Namespace) -> int:
+    from movies.checker.report import as_json
+    from movies.cli.render import check_text
+
+    result = _checked(args)
+    data = as_json(result)
+    print(json.dumps(data) if args.json else check_text(data, args.file))
+    return EXIT_OK if result.verified else EXIT_NOT_VERIFIED
+
+
+def _run_frames(args: argparse.Namespace) -> int:
+    result = _checked(args)
+    last = len(result.frames) - 1
+    at = last if args.at is None else args.at
+    if not 0 <= at <= last:
+        stop = " (the movie stops at an invalid step)" if not result.complete else ""
+        raise InputError(f"there is no frame after step {at}: the frames run from 0 to {last}{stop}")
+    heading = "the first frame" if at == 0 else f"the frame after step {at} ({result.steps[at - 1].source})"
+    print(heading)
+    print(result.frames[at].summary())
+    return EXIT_OK
+
+
 def main(argv: Sequence[str] | None = None) -> int:
     """Run the command line; returns the exit code."""
     parser = build_parser()
@@ -128,3 +197,9 @@ def main(argv: Sequence[str] | None = None) -> int:
     except KeyboardInterrupt:
         print("movies: interrupted", file=sys.stderr)
         return EXIT_INTERRUPTED
+    except Exception as err:  # a bug: say so in one line, the traceback only on request
+        if os.environ.get("MOVIES_DEBUG"):
+            raise
+        print(f"movies: internal error ({type(err).__name__}: {err}); please report it "
+              "(MOVIES_DEBUG=1 shows the traceback)", file=sys.stderr)
+        return EXIT_INTERNAL

@@ -458,6 +458,8 @@ class SaddleResult:
 
     ``effect`` is ``"merge"`` (two components became one), ``"split"`` (one became two) or
     ``"twist"`` (a band that does not respect the orientation, on one component: still one).
+    ``joined`` are the components (old names) the band touched; ``reversed_component`` is the
+    one whose orientation a merging band that does not respect the orientation reversed.
     """
 
     diagram: Diagram
@@ -466,6 +468,8 @@ class SaddleResult:
     effect: str
     components_before: tuple[int, ...]
     components_after: tuple[int, ...]
+    joined: tuple[int, ...] = ()
+    reversed_component: int | None = None
 
 
 def common_faces(diagram: Diagram, first: int, second: int) -> list[int]:
@@ -560,7 +564,11 @@ def saddle(
     beyond = {diagram.side_face[Side(first, s1).other()], diagram.side_face[Side(second, s2).other()]}
     hints = namer.hints(cut=frozenset({face}), side_alias=alias, absorb={max(beyond): min(beyond)})
     new = _rebuild(diagram, crossings, signs, loops, hints)
-    return SaddleResult(new, face, respects, effect, before, tuple(sorted(new.components)))
+    reversed_component = k2 if (not respects and k1 != k2) else None
+    return SaddleResult(
+        new, face, respects, effect, before, tuple(sorted(new.components)),
+        tuple(sorted({k1, k2})), reversed_component,
+    )
 
 
 def _splice_oriented(diagram: Diagram, first: int, second: int, crossings: dict, loops: set) -> None:

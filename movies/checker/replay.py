@@ -1,0 +1,372 @@
+"""Checking a movie: replay every step on the diagrams, judge every claim, keep the surface.
+
+The result is plain data (:class:`CheckResult`): the frames, one record per step, the
+surface, the findings (an invalid step, a false claim, an unproved claim) and the verdict.
+
+>>> from movies.language.movie import parse_movie
+>>> result = check_movie(parse_movie('''start unknot
+... R1 add 1 left +
+... R1 remove 1
+... death 1
+... surface disk'''))
+>>> result.verdict, result.surface.euler_characteristic, len(result.frames)
+('verified', 1, 4)
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+from movies.checker import search
+from movies.diagram import moves
+from movies.diagram.constructors import unlink
+from movies.diagram.model import Diagram
+from movies.errors import MoveError, MoviesError
+from movies.invariants.alexander import alexander_polynomial, determinant
+from movies.invariants.compare import first_difference
+from movies.invariants.jones import jones_polynomial
+from movies.invariants.signature import signature
+from movies.language.movie import MOVE_KINDS, Movie, Statement
+from movies.surface.tracker import Surface, Transition, identity_transition, surface_of
+
+#: the four verdicts, best first
+VERIFIED, CONDITIONAL, CONTRADICTED, INVALID = "verified", "conditional", "contradicted", "invalid"
+
+VERDICT_MEANING = {
+    VERIFIED: "every step checked and every claim proved",
+    CONDITIONAL: "every step checked; some isotopy claims are unproved but agree on every invariant",
+    CONTRADICTED: "a checkpoint or claim is false",
+    INVALID: "a step is not a legal move",
+}
+
+
+@dataclass(frozen=True)
+class Finding:
+    """Something the report must say: ``kind`` is ``invalid``, ``false`` or ``unproved``."""
+
+    kind: str
+    step: int | None  # step number (1, 2, ...), None for claims about the whole surface
+    line: int
+    column: int
+    message: str
+    evidence: str = ""
+
+
+@dataclass(frozen=True)
+class StepRecord:
+    """One step of the movie as checked."""
+
+    number: int
+    line: int
+    kind: str
+    source: str
+    crossings: int
+    components: int
+    certified: bool
+    note: str = ""
+    found: tuple[str, ...] = ()  # moves the checker found (simplify, isotopy claims), as text
+
+
+@dataclass
+class CheckResult:
+    """Everything the checker learned about one movie."""
+
+    movie: Movie
+    frames: list[Diagram] = field(default_factory=list)
+    steps: list[StepRecord] = field(default_factory=list)
+    findings: list[Finding] = field(default_factory=list)
+    checkpoints: list[tuple[Statement, str, str]] = field(default_factory=list)  # statement, outcome, detail
+    claims: list[tuple[str, int | None, bool, str]] = field(default_factory=list)  # fact, value, holds, detail
+    surface: Surface | None = None
+    transitions: list[Transition] = field(default_factory=list)
+
+    @property
+    def verdict(self) -> str:
+        kinds = {f.kind for f in self.findings}
+        if "invalid" in kinds:
+            return INVALID
+        if "false" in kinds:
+            return CONTRADICTED
+        if "unproved" in kinds:
+            return CONDITIONAL
+        return VERIFIED
+
+    @property
+    def verified(self) -> bool:
+        return self.verdict == VERIFIED
+
+    @property
+    def complete(self) -> bool:
+        """True when every step was replayed (no invalid step stopped the replay)."""
+        return not any(f.kind == "invalid" for f in self.findings)
+
+
+def _names_in(diagram: Diagram) -> str:
+    def short(values) -> str:
+        values = sorted(values)
+        return ", ".join(map(str, values)) if values else "none"
+
+    return (
+        f"edges {short(diagram.edges())}; crossings {short(diagram.crossings)}; "
+        f"faces {short(diagram.faces)}; components {short(diagram.components)}"
+    )
+
+
+def _apply_move(diagram: Diagram, statement: Statement) -> tuple[Diagram, Transition, str]:
+    """One explicit move; returns the new frame, what it did to the components, and a note."""
+    a = statement.args
+    kind = statement.kind
+    chosen = moves.NewNames(**{k: tuple(v) for k, v in a.get("names", {}).items()}) if a.get("names") else None
+    if kind == "band":
+        result = moves.saddle(diagram, a["first"], a["second"], a["face"], names=chosen)
+        return result.diagram, band_transition(result), _band_note(result)
+    if kind == "R1+":
+        new = moves.r1_add(diagram, a["edge"], a["hand"], a["sign"], names=chosen)
+    elif kind == "R1-":
+        new = moves.r1_remove(diagram, a["crossing"], a["kink"])
+    elif kind == "R2+":
+        new = moves.r2_add(diagram, a["over"], a["under"], a["face"], names=chosen)
+    elif kind == "R2-":
+        new = moves.r2_remove(diagram, a["face"])
+    elif kind == "R3":
+        new = moves.r3(diagram, a["face"], names=chosen)
+    elif kind == "birth":
+        new = moves.birth(diagram, a["face"], a["counterclockwise"], names=chosen)
+        born = tuple(sorted(set(new.components) - set(diagram.components)))
+        return new, Transition("birth", started=born, births=1), f"component {born[0]} is born"
+    elif kind == "death":
+        new = moves.death(diagram, a["component"])
+        return new, Transition("death", ended=(a["component"],), deaths=1), f"component {a['component']} dies"
+    else:  # pragma: no cover - the language has no other moves
+        raise AssertionError(kind)
+    return new, identity_transition(kind, sorted(diagram.components)), ""
+
+
+def band_transition(result: moves.SaddleResult) -> Transition:
+    """The components before and after a band, with their orientations.
+
+    >>> from movies.diagram.constructors import unlink
+    >>> band_transition(moves.saddle(unlink(2), 1, 2)).links
+    ((1, 1, True), (2, 1, True))
+    """
+    before, after = set(result.components_before), set(result.components_after)
+    if result.effect == "merge":
+        merged = min(result.joined)
+        links = tuple((k, merged, k != result.reversed_component) for k in result.joined)
+        return Transition("band", links=links, saddles=1)
+    if result.effect == "split":
+        (old,) = result.joined
+        (new,) = after - before
+        return Transition("band", links=((old, old, True), (old, new, True)), saddles=1)
+    (old,) = result.joined
+    return Transition("band", links=((old, old, True),), twisted=(old,), saddles=1)
+
+
+def _band_note(result: moves.SaddleResult) -> str:
+    joined = " and ".join(map(str, result.joined))
+    what = {
+        "merge": f"merges components {joined}",
+        "split": f"splits component {joined} in two",
+        "twist": f"twists component {joined} (the band makes the surface non-orientable)",
+    }[result.effect]
+    if not result.respects_orientation and result.effect == "merge":
+        what += f"; it does not respect the orientation, component {result.reversed_component} is reversed"
+    return f"band across face {result.face} {what}"
+
+
+class _Replay:
+    def __init__(self, movie: Movie, budget: float) -> None:
+        self.movie = movie
+        self.result = CheckResult(movie)
+        self.budget = budget
+        self.frame = movie.start
+        self.result.frames.append(self.frame)
+        self.number = 0
+
+    def find(self, kind: str, statement: Statement, message: str, evidence: str = "", step: int | None = None) -> None:
+        self.result.findings.append(
+            Finding(kind, step if step is not None else (self.number or None), statement.line, statement.column, message, evidence)
+        )
+
+    def record(self, statement: Statement, certified: bool, note: str = "", found: tuple[str, ...] = ()) -> None:
+        self.result.steps.append(
+            StepRecord(self.number, statement.line, statement.kind, statement.source.split("%")[0].strip(),
+                       self.frame.crossing_count(), self.frame.component_count(), certified, note, found)
+        )
+
+    def run(self) -> CheckResult:
+        for statement in self.movie.statements:
+            if statement.kind == "budget":
+                self.budget = statement.args["seconds"]
+            elif statement.kind in MOVE_KINDS:
+                self.number += 1
+                if not self.step(statement):
+                    break
+            elif statement.kind == "expect":
+                self.expect(statement)
+        result = self.result
+        if result.complete:
+            result.surface = surface_of(sorted(self.movie.start.components), result.transitions)
+            for statement in self.movie.claims:
+                for fact, value in statement.args["facts"]:
+                    self.claim(statement, fact, value)
+        return result
+
+    # -------------------------------------------------------------- steps
+
+    def step(self, statement: Statement) -> bool:
+        before = self.frame
+        try:
+            if statement.kind == "simplify":
+                new, transition, certified, note, found = self.simplify(statement)
+            elif statement.kind == "isotopic":
+                new, transition, certified, note, found = self.isotopic(statement)
+            else:
+                new, transition, note = _apply_move(before, statement)
+                certified, found = True, ()
+        except MoveError as err:
+            self.find("invalid", statement, f"step {self.number} ({statement.kind}) does not apply: {err}",
+                      f"frame {self.number - 1} has {_names_in(before)}")
+            return False
+        self.frame = new
+        self.result.frames.append(new)
+        self.result.transitions.append(transition)
+        self.record(statement, certified, note, found)
+        return True
+
+    def simplify(self, statement: Statement):
+        target = statement.args
+        outcome = search.simplify_frame(self.frame, target, self.budget)
+        found = tuple(outcome.moves)
+        if outcome.reached:
+            note = f"found {len(found)} Reidemeister moves"
+        else:
+            note = f"the search did not reach {search.describe_target(target)} within the budget"
+            self.find("unproved", statement, f"step {self.number}: {note}; the movie goes on from the diagram it reached")
+        transition = identity_transition("simplify", sorted(self.frame.components))
+        return outcome.diagram, transition, outcome.reached, note, found
+
+    def isotopic(self, statement: Statement):
+        given = statement.args["diagram"]
+        outcome = search.certify(self.frame, given, self.budget)
+        if outcome.certified:
+            links = tuple((k, outcome.components[k], True) for k in sorted(self.frame.components))
+            return given, Transition("isotopic", links=links), True, "certified by Reidemeister moves", tuple(outcome.moves)
+        difference = first_difference(self.frame, given)
+        if difference is not None:
+            self.find("false", statement, f"step {self.number}: the frame is not isotopic to {statement.args['spec']}",
+                      f"they differ in {difference}")
+        else:
+            self.find("unproved", statement, f"step {self.number}: isotopic to {statement.args['spec']} is unproved",
+                      "the search found no Reidemeister moves between them; every invariant agrees")
+        if self.frame.component_count() != given.component_count():
+            # the claim is false, and the surface cannot be followed through it
+            return given, Transition("isotopic", links=(), ended=tuple(self.frame.components),
+                                     started=tuple(given.components)), False, "refuted", ()
+        pairs = zip(sorted(self.frame.components), sorted(given.components))
+        note = "components matched in order of their names"
+        return given, Transition("isotopic", links=tuple((a, b, True) for a, b in pairs)), False, note, ()
+
+    # -------------------------------------------------------------- checkpoints
+
+    def expect(self, statement: Statement) -> None:
+        a = statement.args
+        frame = self.frame
+        what = a["what"]
+        here = f"after step {self.number}" if self.number else "at the start"
+        if what in ("components", "crossings"):
+            actual = frame.component_count() if what == "components" else frame.crossing_count()
+            self._judge(statement, actual == a["value"], f"{what} {a['value']}", f"the frame {here} has {actual} {what}")
+        elif what == "crossingless":
+            self._judge(statement, frame.is_crossingless(), "crossingless", f"the frame {here} has {frame.crossing_count()} crossings")
+        elif what in ("unlink", "isotopic"):
+            target = unlink(frame.component_count()) if what == "unlink" else a["diagram"]
+            label = "an unlink" if what == "unlink" else f"isotopic to {a['spec']}"
+            if what == "unlink" and frame.is_crossingless():
+                self.result.checkpoints.append((statement, "holds", "the frame is crossingless"))
+                return
+            outcome = search.certify(frame, target, self.budget)
+            if outcome.certified:
+                self.result.checkpoints.append((statement, "holds", "certified by Reidemeister moves"))
+                return
+            difference = first_difference(frame, target)
+            if difference is not None:
+                self.result.checkpoints.append((statement, "false", f"they differ in {difference}"))
+                self.find("false", statement, f"the frame {here} is not {label}", f"they differ in {difference}")
+            else:
+                self.result.checkpoints.append((statement, "unproved", "every invariant agrees"))
+                self.find("unproved", statement, f"the frame {here} being {label} is unproved", "every invariant agrees")
+        else:
+            compute = {"signature": signature, "writhe": lambda d: d.writhe(), "determinant": determinant,
+                       "jones": jones_polynomial, "alexander": alexander_polynomial}[what]
+            try:
+                actual = compute(frame)
+            except MoviesError as err:
+                self.find("false", statement, f"the {what} of the frame {here} is not defined: {err}")
+                return
+            self._judge(statement, actual == a["value"], f"{what} {a['value']}", f"the frame {here} has {what} {actual}")
+
+    def _judge(self, statement: Statement, holds: bool, claim: str, detail: str) -> None:
+        self.result.checkpoints.append((statement, "holds" if holds else "false", detail))
+        if not holds:
+            self.find("false", statement, f"expected {claim}", detail)
+
+    # -------------------------------------------------------------- claims about the surface
+
+    def claim(self, statement: Statement, fact: str, value: int | None) -> None:
+        s = self.result.surface
+        assert s is not None
+        comps = s.components
+        if fact == "disk":
+            holds = len(comps) == 1 and comps[0].orientable and comps[0].euler_characteristic == 1 and comps[0].boundary == 1
+            detail = _shape(s)
+        elif fact == "connected":
+            holds, detail = s.connected, f"the surface has {len(comps)} components"
+        elif fact == "components":
+            holds, detail = len(comps) == value, f"the surface has {len(comps)} components"
+        elif fact == "ribbon":
+            empty_end = self.frame.is_empty()
+            holds = empty_end and s.births == 0
+            detail = ("the movie does not end empty" if not empty_end
+                      else f"the movie has {s.births} birth{'s' if s.births != 1 else ''}")
+        elif fact == "orientable":
+            holds, detail = s.orientable, "orientable" if s.orientable else "a band makes it non-orientable"
+        elif fact == "genus":
+            genera = [c.genus for c in comps]
+            holds = all(g is not None for g in genera) and sum(genera) == value
+            detail = f"genus {'+'.join(str(g) for g in genera)}" if all(g is not None for g in genera) else "not orientable"
+        elif fact == "euler":
+            holds, detail = s.euler_characteristic == value, f"Euler characteristic {s.euler_characteristic}"
+        else:  # pragma: no cover
+            raise AssertionError(fact)
+        self.result.claims.append((fact, value, holds, detail))
+        if not holds:
+            said = fact if value is None else f"{fact} {value}"
+            self.find("false", statement, f"the surface is claimed to be {said}", detail, step=None)
+
+
+def _shape(s: Surface) -> str:
+    parts = []
+    for c in s.components:
+        kind = f"genus {c.genus}" if c.orientable else f"{c.crosscaps} crosscaps"
+        parts.append(f"{kind}, {c.boundary} boundary circle{'s' if c.boundary != 1 else ''}")
+    return "; ".join(parts) if parts else "empty"
+
+
+def check_movie(movie: Movie, budget: float = search.DEFAULT_BUDGET) -> CheckResult:
+    """Replay a movie and judge it.
+
+    Parameters
+    ----------
+    movie : Movie
+        From :func:`movies.language.movie.parse_movie`.
+    budget : float
+        Seconds each search (simplify steps, isotopy claims) may take, unless the movie sets
+        its own with ``budget N seconds``.
+
+    Returns
+    -------
+    CheckResult
+        Its ``verdict`` is ``verified``, ``conditional``, ``contradicted`` or ``invalid``.
+    """
+    return _Replay(movie, budget).run()

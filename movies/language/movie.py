@@ -1,0 +1,361 @@
+"""Reading a movie file (the language of ``grammar/movie.lark``) into plain statements.
+
+A movie is one statement per line; ``%`` starts a comment. The statements, in the order a movie
+usually has them (the full reference is ``grammar/README.md``, "Writing a movie"):
+
+=================================  =========================================================
+``title TEXT``                     a title for the report
+``start DIAGRAM``                  the first frame, in the diagram notation
+``band E F [in face G]``           a band (saddle) between edges E and F across face G
+``R1 add E left|right +|-``        a kink on edge E into the face on that side, with that sign
+``R1 remove C [kink E]``           remove the kink at crossing C
+``R2 add E over F in face G``      push edge E over edge F across face G
+``R2 remove face G``               remove the bigon G
+``R3 face G``                      move a strand across the triangle G
+``birth [cw] in face G``           a new circle in face G (counterclockwise unless ``cw``)
+``death K``                        cap off component K, a crossingless circle
+``simplify [to TARGET]``           let the checker find Reidemeister moves (TARGET: ``crossingless``,
+                                   ``N crossings`` or a diagram)
+``isotopic to DIAGRAM``            claim the frame is isotopic to DIAGRAM; go on from DIAGRAM
+``expect ...``                     a checkpoint: ``components N``, ``crossings N``, ``crossingless``,
+                                   ``unlink``, ``isotopic to DIAGRAM``, ``signature N``,
+                                   ``writhe N``, ``determinant N``, ``jones POLY``, ``alexander POLY``
+``surface FACT, ...``              claims about the surface: ``disk``, ``connected``, ``ribbon``,
+                                   ``orientable``, ``genus N``, ``euler N``, ``components N``
+``budget N seconds``               time allowed to each later search
+=================================  =========================================================
+
+Moves may end with ``new edges 20 21, faces 7`` to choose the names of what they create.
+
+>>> movie = parse_movie('''title demo
+... start unknot
+... R1 add 1 left +
+... R1 remove 1
+... death 1
+... surface disk''')
+>>> [s.kind for s in movie.steps], movie.claims[0].args
+(['R1+', 'R1-', 'death'], {'facts': [('disk', None)]})
+"""
+
+from __future__ import annotations
+
+import difflib
+import functools
+import importlib.resources
+import pathlib
+from dataclasses import dataclass, field
+from typing import Any
+
+from lark import Lark, Token, Tree
+from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput, UnexpectedToken
+
+from movies.algebra.laurent import LaurentPolynomial
+from movies.diagram.model import Diagram
+from movies.errors import InputError, MoviesError
+from movies.language.spec import Located, parse_diagram
+
+__all__ = ["Statement", "Movie", "MovieSyntaxError", "MovieInputError", "parse_movie", "STATEMENT_WORDS"]
+
+#: the words a statement can start with
+STATEMENT_WORDS = (
+    "title", "start", "band", "R1", "R2", "R3", "birth", "death", "simplify", "isotopic",
+    "expect", "surface", "budget",
+)
+
+#: statements that change the frame
+MOVE_KINDS = ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "simplify", "isotopic")
+
+
+class MovieSyntaxError(Located, InputError):
+    """A movie file the language cannot read; carries the line, column and a caret picture."""
+
+
+class MovieInputError(Located, InputError):
+    """A statement that reads but cannot mean anything (a polynomial that does not parse, ...)."""
+
+
+@dataclass(frozen=True)
+class Statement:
+    """One statement of a movie, as plain data.
+
+    ``kind`` is one of ``title start band R1+ R1- R2+ R2- R3 birth death simplify isotopic
+    expect surface budget``; ``args`` holds its arguments (diagrams already read); ``line``
+    and ``column`` locate it; ``source`` is its line of text.
+    """
+
+    kind: str
+    line: int
+    column: int
+    source: str
+    args: dict = field(default_factory=dict)
+
+
+@dataclass(frozen=True)
+class Movie:
+    """A parsed movie: title, first frame, and the statements after it in order."""
+
+    title: str
+    start: Diagram
+    start_statement: Statement
+    statements: tuple[Statement, ...]
+    text: str
+
+    @property
+    def steps(self) -> list[Statement]:
+        """The statements that change the frame."""
+        return [s for s in self.statements if s.kind in MOVE_KINDS]
+
+    @property
+    def claims(self) -> list[Statement]:
+        """The ``surface`` statements."""
+        return [s for s in self.statements if s.kind == "surface"]
+
+
+# ---------------------------------------------------------------------- the grammar
+
+
+def movie_grammar() -> str:
+    """The text of ``movie.lark`` (from the installed package, or the checkout's grammar folder)."""
+    try:
+        return (importlib.resources.files("movies.grammar") / "movie.lark").read_text(encoding="utf-8")
+    except (ModuleNotFoundError, FileNotFoundError):  # pragma: no cover - uninstalled checkout
+        return (pathlib.Path(__file__).resolve().parents[2] / "grammar" / "movie.lark").read_text(encoding="utf-8")
+
+
+@functools.lru_cache(maxsize=1)
+def movie_parser() -> Lark:
+    """The LALR parser of the movie language, built once."""
+    return Lark(movie_grammar(), parser="lalr", propagate_positions=True, maybe_placeholders=True)
+
+
+# ---------------------------------------------------------------------- friendly syntax errors
+
+# Example mistakes: lark matches the parser state of an error against the state these reach.
+_EXAMPLES: dict[str, list[str]] = {
+    "write 'R1 add EDGE left|right +|-' to add a kink, or 'R1 remove CROSSING'": [
+        "start unknot\nR1 5 left +", "start unknot\nR1 kink 5",
+    ],
+    "the side of an edge is 'left' or 'right' (or L, R), then the sign + or -": [
+        "start unknot\nR1 add 5 +", "start unknot\nR1 add 5 up +",
+    ],
+    "a kink needs a sign after the side: + or -": ["start unknot\nR1 add 5 left", "start unknot\nR1 add 5 left 1"],
+    "write 'R2 add EDGE over EDGE in face FACE' or 'R2 remove face FACE'": [
+        "start unknot\nR2 4 over 8", "start unknot\nR2 add 4 8 in face 2", "start unknot\nR2 add 4 under 8 in face 2",
+    ],
+    "R2 add needs the face the pushed edge crosses: '... in face FACE'": ["start unknot\nR2 add 4 over 8"],
+    "name the face: 'face FACE'": [
+        "start unknot\nR2 remove 6", "start unknot\nR3 5", "start unknot\nbirth 3", "start unknot\nbirth cw 3",
+    ],
+    "a band joins two edges: 'band EDGE EDGE [in face FACE]'": ["start unknot\nband 3", "start unknot\nband"],
+    "death takes the component that dies: 'death COMPONENT'": ["start unknot\ndeath", "start unknot\ndeath face 2"],
+    "after 'expect': components N, crossings N, crossingless, unlink, isotopic to DIAGRAM, "
+    "or signature/writhe/determinant/jones/alexander and a value": [
+        "start unknot\nexpect", "start unknot\nexpect genus 1", "start unknot\nexpect knot 3_1",
+    ],
+    "after 'surface': disk, connected, ribbon, orientable, genus N, euler N or components N, "
+    "separated by commas": [
+        "start unknot\nsurface", "start unknot\nsurface sphere", "start unknot\nsurface genus",
+        "start unknot\nsurface disk genus 0",
+    ],
+    "the first frame: 'start DIAGRAM', e.g. 'start 3_1 # mirror(3_1)'": ["start"],
+    "one statement per line": ["start unknot\ndeath 1 death 2", "start unknot\nband 1 2 3"],
+}
+
+
+def _position(text: str, err: UnexpectedInput) -> tuple[int, int]:
+    line = getattr(err, "line", None)
+    column = getattr(err, "column", None)
+    if isinstance(line, int) and line > 0:
+        return line, column if isinstance(column, int) and column > 0 else 1
+    lines = text.split("\n")
+    return len(lines), len(lines[-1]) + 1
+
+
+def _syntax_error(text: str, err: UnexpectedInput) -> MovieSyntaxError:
+    line, column = _position(text, err)
+    if isinstance(err, UnexpectedEOF):
+        return MovieSyntaxError("the movie ends in the middle of a statement", text, line, column)
+    hint = None
+    try:
+        hint = err.match_examples(movie_parser().parse, _EXAMPLES, use_accepts=False)
+    except Exception:  # pragma: no cover - a failure of the hint machinery must not hide the error
+        hint = None
+    if isinstance(err, UnexpectedCharacters):
+        got = text.split("\n")[line - 1][column - 1: column + 11].split(" ")[0] or repr(err.char)
+    else:
+        token = err.token if isinstance(err, UnexpectedToken) else None
+        shown = str(token).split()[0] if token is not None and str(token).split() else str(token)
+        got = "the end of the line" if token is not None and token.type in ("_NL", "$END") else f"'{shown}'"
+    first_word = text.split("\n")[line - 1].strip().split(" ")[0] if text.split("\n")[line - 1].strip() else ""
+    if column == _first_column(text, line) and first_word not in STATEMENT_WORDS:
+        close = difflib.get_close_matches(first_word, STATEMENT_WORDS, n=1)
+        reason = f"no statement starts with '{first_word}'"
+        reason += f"; did you mean '{close[0]}'?" if close else f"; statements start with {', '.join(STATEMENT_WORDS)}"
+        return MovieSyntaxError(reason, text, line, column)
+    reason = f"unexpected {got}"
+    if hint:
+        reason += f": {hint}"
+    return MovieSyntaxError(reason, text, line, column)
+
+
+def _first_column(text: str, line: int) -> int:
+    row = text.split("\n")[line - 1]
+    return len(row) - len(row.lstrip()) + 1
+
+
+# ---------------------------------------------------------------------- from the tree to statements
+
+
+def _diagram_at(text: str, token: Token) -> Diagram:
+    """Read the diagram notation in ``token``; its errors point into the movie file."""
+    source = str(token).rstrip()
+    try:
+        return parse_diagram(source)
+    except Located as err:
+        line = token.line + err.line - 1
+        column = (token.column + err.column - 1) if err.line == 1 else err.column
+        raise type(err)(err.reason, text, line, column) from None
+    except MoviesError as err:
+        raise MovieInputError(str(err), text, token.line, token.column) from None
+
+
+def _polynomial_at(text: str, token: Token, variable: str = "t") -> LaurentPolynomial:
+    try:
+        return LaurentPolynomial.parse(str(token).strip(), variable=variable)
+    except Exception as err:  # the polynomial reader's own errors are not ours; say where
+        raise MovieInputError(f"cannot read the polynomial '{str(token).strip()}': {err}", text, token.line, token.column) from None
+
+
+def _names(tree: Tree | None) -> dict[str, tuple[int, ...]]:
+    chosen: dict[str, list[int]] = {}
+    if tree is None:
+        return {}
+    for group in tree.children:
+        kind = str(group.children[0]).rstrip("s")
+        chosen.setdefault(kind + "s", []).extend(int(t) for t in group.children[1:])
+    return {kind: tuple(values) for kind, values in chosen.items()}
+
+
+def _face(tree: Tree | None) -> int | None:
+    return None if tree is None else int(tree.children[0])
+
+
+def _statement(text: str, tree: Tree) -> Statement:
+    kind = tree.data
+    line, column = tree.meta.line, tree.meta.column
+    source = text.split("\n")[line - 1]
+    c = tree.children
+    make = lambda k, **args: Statement(k, line, column, source, args)  # noqa: E731
+    if kind == "title":
+        return make("title", text=str(c[0]).strip() if c and c[0] is not None else "")
+    if kind == "first":
+        return make("start", diagram=_diagram_at(text, c[0]), spec=str(c[0]).strip())
+    if kind == "band":
+        return make("band", first=int(c[0]), second=int(c[1]), face=_face(c[2]), names=_names(c[3]))
+    if kind == "r1_add":
+        hand = "L" if str(c[1]) in ("left", "L") else "R"
+        return make("R1+", edge=int(c[0]), hand=hand, sign=+1 if str(c[2]) == "+" else -1, names=_names(c[3]))
+    if kind == "r1_remove":
+        return make("R1-", crossing=int(c[0]), kink=None if c[1] is None else int(c[1]))
+    if kind == "r2_add":
+        return make("R2+", over=int(c[0]), under=int(c[1]), face=_face(c[2]), names=_names(c[3]))
+    if kind == "r2_remove":
+        return make("R2-", face=_face(c[0]))
+    if kind == "r3":
+        return make("R3", face=_face(c[0]), names=_names(c[1]))
+    if kind == "birth":
+        return make("birth", counterclockwise=c[0] is None or str(c[0]) == "ccw", face=_face(c[1]), names=_names(c[2]))
+    if kind == "death":
+        return make("death", component=int(c[0]))
+    if kind == "simplify":
+        return make("simplify", **_target(text, c[0]))
+    if kind == "isotopic":
+        return make("isotopic", diagram=_diagram_at(text, c[0]), spec=str(c[0]).strip())
+    if kind.startswith("expect_"):
+        return make("expect", **_expectation(text, kind, c))
+    if kind == "claim":
+        return make("surface", facts=[_fact(f) for f in c])
+    if kind == "budget":
+        return make("budget", seconds=int(c[0]))
+    raise AssertionError(f"unknown statement {kind}")  # pragma: no cover
+
+
+def _target(text: str, token: Token | None) -> dict[str, Any]:
+    if token is None:
+        return {"target": "fewest"}
+    words = str(token).split()
+    if words == ["crossingless"]:
+        return {"target": "crossingless"}
+    if len(words) == 2 and words[0].isdigit() and words[1] in ("crossings", "crossing"):
+        return {"target": "crossings", "crossings": int(words[0])}
+    return {"target": "diagram", "diagram": _diagram_at(text, token), "spec": str(token).strip()}
+
+
+def _expectation(text: str, kind: str, c: list) -> dict[str, Any]:
+    if kind == "expect_components":
+        return {"what": "components", "value": int(c[0])}
+    if kind == "expect_crossings":
+        return {"what": "crossings", "value": int(c[0])}
+    if kind == "expect_crossingless":
+        return {"what": "crossingless"}
+    if kind == "expect_unlink":
+        return {"what": "unlink"}
+    if kind == "expect_isotopic":
+        return {"what": "isotopic", "diagram": _diagram_at(text, c[0]), "spec": str(c[0]).strip()}
+    invariant, value = str(c[0]), c[1]
+    if invariant in ("jones", "alexander"):
+        return {"what": invariant, "value": _polynomial_at(text, value)}
+    words = str(value).strip()
+    try:
+        number = int(words)
+    except ValueError:
+        raise MovieInputError(f"the {invariant} is an integer, not '{words}'", text, value.line, value.column) from None
+    return {"what": invariant, "value": number}
+
+
+def _fact(tree: Tree) -> tuple[str, int | None]:
+    name = {"surface_components": "components"}.get(tree.data, tree.data)
+    return (name, int(tree.children[0]) if tree.children else None)
+
+
+def parse_movie(text: str) -> Movie:
+    """Read a movie file.
+
+    Parameters
+    ----------
+    text : str
+        The whole file.
+
+    Returns
+    -------
+    Movie
+        Title, first frame and statements, every diagram already read.
+
+    Raises
+    ------
+    MovieSyntaxError
+        Text the language cannot read: line, column, and ``context()`` with a caret.
+
+    >>> parse_movie("start 3_1\\nbnad 2 3")
+    Traceback (most recent call last):
+    ...
+    movies.language.movie.MovieSyntaxError: no statement starts with 'bnad'; did you mean 'band'? (line 2, column 1)
+    """
+    try:
+        tree = movie_parser().parse(text if text.endswith("\n") else text + "\n")
+    except UnexpectedInput as err:
+        raise _syntax_error(text, err) from None
+    statements = [_statement(text, child) for child in tree.children]
+    starts = [s for s in statements if s.kind == "start"]
+    if not starts:
+        raise MovieSyntaxError("the movie has no first frame: write 'start DIAGRAM' before the first step", text, 1, 1)
+    first = starts[0]
+    if len(starts) > 1:
+        again = starts[1]
+        raise MovieSyntaxError("a movie has one 'start'; use 'isotopic to DIAGRAM' to go on from a new diagram", text, again.line, again.column)
+    early = [s for s in statements if s.kind in MOVE_KINDS + ("expect",) and (s.line < first.line)]
+    if early:
+        raise MovieSyntaxError("this step comes before the first frame ('start DIAGRAM')", text, early[0].line, early[0].column)
+    titles = [s.args["text"] for s in statements if s.kind == "title"]
+    rest = tuple(s for s in statements if s.kind not in ("start", "title"))
+    return Movie(titles[0] if titles else "", first.args["diagram"], first, rest, text)
