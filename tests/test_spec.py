@@ -197,7 +197,7 @@ def test_the_grammar_is_package_data():
         ("mirror 3_1", 8, "mirror takes one diagram in parentheses"),
         ("reverse(3_1, )", 14, "reverse takes a diagram"),
         ("3_1 #(1) 4_1", 8, "where two diagrams meet is given by two integers"),
-        ("3_1 % 4_1", 5, "unexpected character '%'; expected '#', '+' or the end of the text"),
+        ("3_1 $ 4_1", 5, "unexpected character '$'; expected '#', '+' or the end of the text"),
         ("reverse(3_1 1)", 13, "unexpected '1'; expected '#', ')', '+' or ','"),
         ("3_1 , 4_1", 5, "unexpected ','; expected '#', '+' or the end of the text"),
         ("mirorr(3_1)", 1, "'mirorr' is not a word of the notation; did you mean mirror?"),

@@ -583,11 +583,15 @@ class Hints:
     side_alias: Mapping[Side, Side] = field(default_factory=dict)
 
 
+class NameInUseError(DiagramError):
+    """A name the caller chose for something new is already taken."""
+
+
 def _fresh(taken: set[int], floor: int, chosen: list[int], kind: str) -> int:
     if chosen:
         name = chosen.pop(0)
         if name in taken:
-            raise DiagramError(f"the chosen {kind} name {name} is already in use")
+            raise NameInUseError(f"the chosen {kind} name {name} is already in use")
     else:
         name = max(max(taken, default=0), floor) + 1
     taken.add(name)
@@ -634,7 +638,42 @@ def assemble(
     else:
         faces = _inherit_faces(previous, cycles, hints, crossings, signs, loops)
         named_components = _inherit_components(previous, components, hints)
-    return Diagram(crossings, signs, loops, named_components, faces)
+    diagram = Diagram(crossings, signs, loops, named_components, faces)
+    check_regions(diagram)
+    return diagram
+
+
+def check_regions(diagram: Diagram) -> None:
+    """Check that the faces are the traced cycles, and that pieces and regions form a tree.
+
+    On the sphere every split piece touches each region at most once, and the graph with a node
+    for each piece and each region, and an edge for each boundary cycle, is a tree.
+
+    >>> from movies.diagram.pd import from_pd
+    >>> check_regions(from_pd([], loops=2))
+    """
+    cycles = sorted(c for region in diagram.faces.values() for c in region)
+    traced = trace_cycles(diagram.crossings, diagram.signs, diagram.loops)
+    if cycles != traced:
+        raise DiagramError("the faces do not match the diagram's boundary cycles")
+    pieces = diagram.pieces()
+    piece_of = {edge: i for i, piece in enumerate(pieces) for edge in piece}
+    parent = list(range(len(pieces)))
+
+    def find(i: int) -> int:
+        while parent[i] != i:
+            parent[i] = parent[parent[i]]
+            i = parent[i]
+        return i
+
+    for name, region in diagram.faces.items():
+        touching = [piece_of[cycle[0].edge] for cycle in region]
+        if len(set(touching)) != len(touching):
+            raise DiagramError(f"face {name} meets one split piece twice")
+        for other in touching[1:]:
+            parent[find(other)] = find(touching[0])
+    if len(cycles) != len(pieces) + len(diagram.faces) - 1 or len({find(i) for i in range(len(pieces))}) > 1:
+        raise DiagramError("the split pieces and the faces between them do not form a tree")
 
 
 def _check_planar(crossings, signs, loops, cycles) -> None:

@@ -33,7 +33,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Sequence
 
-from movies.diagram.model import Dart, Diagram, Hints, Side, assemble, reencode, trace_cycles
+from movies.diagram.model import Dart, Diagram, Hints, NameInUseError, Side, assemble, reencode, trace_cycles
 from movies.errors import DiagramError, MoveError
 
 
@@ -76,6 +76,8 @@ class _Namer:
 def _rebuild(previous: Diagram, crossings, signs, loops, hints: Hints) -> Diagram:
     try:
         return assemble(crossings, signs, loops, previous=previous, hints=hints)
+    except NameInUseError as err:
+        raise MoveError(str(err)) from None
     except DiagramError as err:  # pragma: no cover - a move that breaks planarity is a bug
         raise MoveError(f"internal error, the move produced an invalid diagram: {err}") from err
 
@@ -562,7 +564,11 @@ def saddle(
         signs = {**diagram.signs, **signs}
     # the band's strip joins the faces beyond the two edges (needed when a circle's name goes)
     beyond = {diagram.side_face[Side(first, s1).other()], diagram.side_face[Side(second, s2).other()]}
-    hints = namer.hints(cut=frozenset({face}), side_alias=alias, absorb={max(beyond): min(beyond)})
+    place = {}
+    if first == second:
+        # the circle cut off runs along the edge: its other side faces what lay beyond the edge
+        place[Side(circle, s1).other()] = diagram.side_face[Side(first, s1).other()]
+    hints = namer.hints(cut=frozenset({face}), side_alias=alias, absorb={max(beyond): min(beyond)}, place=place)
     new = _rebuild(diagram, crossings, signs, loops, hints)
     reversed_component = k2 if (not respects and k1 != k2) else None
     return SaddleResult(

@@ -1,0 +1,24 @@
+"""Finding Reidemeister moves by search: simplifying diagrams and certifying isotopies.
+
+- :mod:`.records`: :class:`MoveRecord`, a move and its exact arguments; :func:`apply`,
+  :func:`replay`; the moves that apply to a diagram; the move that undoes a move.
+- :mod:`.search`: :func:`simplify` toward a target, within a :class:`Budget`.
+- :mod:`.certify`: :func:`certify_isotopy`, one explicit move sequence between two diagrams.
+- :mod:`.scramble`: random legal moves from a seed, to make test diagrams.
+
+>>> from movies.diagram.constructors import from_braid
+>>> simplify(from_braid([1, -1]), "crossingless").reached
+True
+"""
+
+from movies.diagram.simplify.certify import IsotopyCertificate, certify_isotopy, rename
+from movies.diagram.simplify.records import KINDS, MoveRecord, apply, candidates, inverse, replay, translate
+from movies.diagram.simplify.scramble import scramble
+from movies.diagram.simplify.search import Budget, SimplifyResult, simplify
+
+__all__ = [
+    "KINDS", "MoveRecord", "apply", "replay", "candidates", "inverse", "translate",
+    "Budget", "SimplifyResult", "simplify",
+    "IsotopyCertificate", "certify_isotopy", "rename",
+    "scramble",
+]

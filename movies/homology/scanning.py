@@ -1,0 +1,469 @@
+"""Bar-Natan's local algorithm: add crossings one at a time, deloop, eliminate.
+
+The state is a chain complex in Bar-Natan's category of a tangle: its objects are crossingless
+matchings of the current boundary points (edge labels of the diagram that are cut), each with a
+homological degree and a q-shift; its differential is a sparse matrix of degree-0 dotted
+cobordisms in the disk basis of :mod:`movies.homology.cobordisms` (stored at H = 1, powers of H
+implied by the shifts).
+
+Adding a crossing ``(a, b, c, d)`` tensors the complex with ``[0-smoothing → 1-smoothing{1}]``
+(the 0-smoothing joins a-b and c-d, the 1-smoothing a-d and b-c; the saddle between them),
+glued to the boundary along the labels the two share. The sign rule is
+``d(x ⊗ y) = dx ⊗ y + (-1)^|x| x ⊗ dy``. Every closed circle that appears is delooped at once,
+``O ≅ ∅{+1} ⊕ ∅{-1}``; then every entry that is a unit times the identity between equal
+matchings with equal shifts is removed by Gaussian elimination, until none is left.
+
+When every crossing is in, the objects are empty matchings: the complex is a complex of free
+graded R[H]-modules (:class:`FinalComplex`), entry ``c`` between ``∅{a}`` and ``∅{b}`` standing
+for ``c·H^((b - a)/2)``.
+
+The elimination keeps the data it needs to move a cycle along (the entries ``γ`` of the removed
+rows, see :meth:`Complex.eliminate`), so a class can later be carried through the homotopy
+equivalences.
+
+>>> final = scan([(1, 5, 2, 4), (3, 1, 4, 6), (5, 3, 6, 2)], RING_Z)
+>>> sorted(final.generators)
+[(0, 1), (0, 3), (2, 5), (2, 7), (3, 7), (3, 9)]
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+from movies.homology.cobordisms import components, compose_morphisms, expand
+from movies.homology.rings import Ring
+
+__all__ = ["FinalComplex", "Complex", "scan", "RING_Z"]
+
+RING_Z = Ring("Z", 0)
+
+# The two smoothings as pairs of crossing slots, and each slot's strip within that smoothing.
+_SMOOTHING = ((1, 0, 3, 2), (3, 2, 1, 0))
+_STRIP = ((0, 0, 1, 1), (0, 1, 1, 0))
+
+
+@dataclass
+class FinalComplex:
+    """A complex of free graded R[H]-modules, one generator per empty object.
+
+    ``generators[i] = (h, q)``: homological degree and q-shift of generator ``i`` (already
+    shifted by ``[-n_-]{n_+ - 2 n_-}``); ``entries[(i, j)] = c``: the differential sends
+    generator ``i`` to ``c·H^k`` times generator ``j`` with ``k = (q_j - q_i) / 2``.
+    """
+
+    generators: list[tuple[int, int]]
+    entries: dict[tuple[int, int], int] = field(default_factory=dict)
+
+
+class Complex:
+    """The complex of a tangle during the scan (see the module docstring).
+
+    ``h``, ``m``, ``q`` map an object id to its homological degree, matching and q-shift;
+    ``out[i][j]`` and ``inn[j][i]`` are the same dict, the morphism ``i -> j``.
+    """
+
+    def __init__(self, ring: Ring) -> None:
+        self.ring = ring
+        self.h: dict[int, int] = {}
+        self.m: dict[int, tuple] = {}
+        self.q: dict[int, int] = {}
+        self.out: dict[int, dict[int, dict]] = {}
+        self.inn: dict[int, dict[int, dict]] = {}
+        self._next = 0
+
+    def add_object(self, h: int, m: tuple, q: int) -> int:
+        i = self._next
+        self._next += 1
+        self.h[i] = h
+        self.m[i] = m
+        self.q[i] = q
+        self.out[i] = {}
+        self.inn[i] = {}
+        return i
+
+    def add_to(self, i: int, j: int, morphism: dict, factor: int = 1) -> None:
+        """Add ``factor * morphism`` to the entry ``i -> j``, dropping zero terms."""
+        reduce = self.ring.reduce
+        entry = self.out[i].get(j)
+        if entry is None:
+            entry = {}
+            for k, v in morphism.items():
+                v = reduce(v * factor)
+                if v:
+                    entry[k] = v
+            if entry:
+                self.out[i][j] = entry
+                self.inn[j][i] = entry
+            return
+        for k, v in morphism.items():
+            v = reduce(entry.get(k, 0) + v * factor)
+            if v:
+                entry[k] = v
+            else:
+                entry.pop(k, None)
+        if not entry:
+            del self.out[i][j]
+            del self.inn[j][i]
+
+    def unit_of(self, i: int, j: int):
+        """The unit ``u`` when the entry ``i -> j`` is ``u`` times an identity, else None."""
+        if self.m[i] != self.m[j] or self.q[i] != self.q[j]:
+            return None
+        entry = self.out[i].get(j)
+        if not entry:
+            return None
+        u = entry.get(0)
+        if u is None or len(entry) != 1 or not self.ring.is_unit(u):
+            return None
+        return u
+
+    def remove(self, i: int) -> None:
+        for j in self.out.pop(i):
+            del self.inn[j][i]
+        for j in self.inn.pop(i):
+            del self.out[j][i]
+        del self.h[i], self.m[i], self.q[i]
+
+    def eliminate(self, b1: int, b2: int, u: int) -> list[tuple[int, int]]:
+        """Gaussian elimination of the isomorphism ``u·id: b1 -> b2``.
+
+        Every entry ``x -> y`` with ``x -> b2`` (δ) and ``b1 -> y`` (γ) becomes
+        ``ε - γ u⁻¹ δ``; then ``b1`` and ``b2`` go. Returns the entries that changed (to look
+        for new isomorphisms among them). To carry a cycle through this step one needs, in
+        b2's degree, ``x ↦ x_E - γ u⁻¹ x_b2``: the dicts ``out[b1]`` hold γ until removal.
+        """
+        inv = self.ring.inverse(u)
+        m = self.m
+        mb = m[b1]
+        sources = [(x, d) for x, d in self.inn[b2].items() if x != b1]
+        targets = [(y, g) for y, g in self.out[b1].items() if y != b2]
+        changed = []
+        for x, delta in sources:
+            mx = m[x]
+            for y, gamma in targets:
+                comp = compose_morphisms(mx, mb, m[y], delta, gamma)
+                if comp:
+                    self.add_to(x, y, comp, -inv)
+                    changed.append((x, y))
+        self.remove(b1)
+        self.remove(b2)
+        return changed
+
+    def simplify(self, candidates=None) -> None:
+        """Eliminate isomorphisms until none is left (``candidates``: entries to look at first)."""
+        if candidates is None:
+            candidates = [(i, j) for i, row in self.out.items() for j in row]
+        stack = list(candidates)
+        while stack:
+            i, j = stack.pop()
+            if i not in self.m or j not in self.m:
+                continue
+            u = self.unit_of(i, j)
+            if u is None:
+                continue
+            changed = self.eliminate(i, j, u)
+            stack.extend(changed)
+
+    def size(self) -> int:
+        return len(self.m)
+
+
+class _Step:
+    """The geometry of adding one crossing to a tangle with the given boundary labels."""
+
+    def __init__(self, boundary: list, crossing: tuple) -> None:
+        n = len(boundary)
+        self.n = n
+        where = {label: i for i, label in enumerate(boundary)}
+        link = [-1] * (n + 4)  # glue partner of each point (old positions, then slots)
+        glue = []
+        for j, label in enumerate(crossing):
+            p = where.get(label)
+            if p is not None:
+                link[p] = n + j
+                link[n + j] = p
+                glue.append((p, n + j))
+        for j in range(4):
+            for j2 in range(j + 1, 4):
+                if crossing[j] == crossing[j2] and crossing[j] not in where:
+                    link[n + j] = n + j2
+                    link[n + j2] = n + j
+                    glue.append((n + j, n + j2))
+        self.link = link
+        self.glue = glue
+        # the new boundary: kept old positions in order, then new slots in slot order
+        newpos = [-1] * (n + 4)
+        new_boundary = []
+        for p in range(n):
+            if link[p] < 0:
+                newpos[p] = len(new_boundary)
+                new_boundary.append(boundary[p])
+        for j in range(4):
+            if link[n + j] < 0:
+                newpos[n + j] = len(new_boundary)
+                new_boundary.append(crossing[j])
+        self.newpos = newpos
+        self.new_boundary = new_boundary
+        self._objects: dict = {}
+        self._horizontal: dict = {}
+        self._vertical: dict = {}
+
+    # --------------------------------------------------------------- objects
+    def _arcs(self, m: tuple, s: int) -> list:
+        n = self.n
+        sm = _SMOOTHING[s]
+        return list(m) + [n + sm[j] for j in range(4)]
+
+    def obj(self, m: tuple, s: int) -> tuple[tuple, int]:
+        """(new matching, number of closed circles) of ``m`` glued to smoothing ``s``."""
+        key = (m, s)
+        found = self._objects.get(key)
+        if found is not None:
+            return found
+        arc = self._arcs(m, s)
+        link = self.link
+        newpos = self.newpos
+        size = len(self.new_boundary)
+        new = [0] * size
+        visited = [False] * len(arc)
+        for start in range(len(arc)):
+            if link[start] >= 0 or visited[start]:
+                continue
+            p = start
+            while True:
+                visited[p] = True
+                p = arc[p]
+                visited[p] = True
+                if link[p] < 0:
+                    break
+                p = link[p]
+            new[newpos[start]] = newpos[p]
+            new[newpos[p]] = newpos[start]
+        closed = 0
+        for start in range(len(arc)):
+            if not visited[start]:
+                closed += 1
+                p = start
+                while not visited[p]:
+                    visited[p] = True
+                    p = arc[p]
+                    visited[p] = True
+                    p = link[p]
+        found = (tuple(new), closed)
+        self._objects[key] = found
+        return found
+
+    # --------------------------------------------------------------- morphisms
+    def _evaluate(self, top: list, bot: list, piece: list, pieces: int, dotted_pieces) -> dict:
+        """Glue disks and strips; deloop; return {(src config, tgt config): {pattern: coeff}}.
+
+        ``top``/``bot``: arc partner of each point in the source/target tangle; ``piece[p]``:
+        the disk holding the vertical interval at point ``p``; ``dotted_pieces``: set of pieces
+        with a dot. Source closed circle ``i`` in config bit ``i`` = 1 is ∅{-1}, 0 is ∅{+1};
+        same for the target.
+        """
+        link = self.link
+        size = len(top)
+        parent = list(range(pieces))
+
+        def find(x):
+            while parent[x] != x:
+                parent[x] = parent[parent[x]]
+                x = parent[x]
+            return x
+
+        for p, r in self.glue:
+            a, b = find(piece[p]), find(piece[r])
+            if a != b:
+                parent[a] = b
+        roots = [find(x) for x in range(pieces)]
+        chi: dict[int, int] = {}
+        for r in roots:
+            chi[r] = chi.get(r, 0) + 1
+        for p, r in self.glue:
+            rr = roots[piece[p]]
+            chi[rr] -= 1
+        # trace the circles of source ∪ target: nodes p (source side) and size + p (target)
+        newpos = self.newpos
+        seen = [False] * (2 * size)
+        open_circles = []  # (smallest new position, root)
+        src_closed = []  # (smallest point, root)
+        tgt_closed = []
+        for start in range(2 * size):
+            if seen[start]:
+                continue
+            node = start
+            lowest_new = None
+            lowest = None
+            sides = 0
+            while not seen[node]:
+                seen[node] = True
+                side, p = divmod(node, size)
+                sides |= 1 << side
+                q = (top if side == 0 else bot)[p]
+                seen[side * size + q] = True
+                if lowest is None or p < lowest:
+                    lowest = p
+                if q < lowest:
+                    lowest = q
+                lq = link[q]
+                if lq < 0:
+                    pos = newpos[q]
+                    if lowest_new is None or pos < lowest_new:
+                        lowest_new = pos
+                    node = (1 - side) * size + q
+                else:
+                    node = side * size + lq
+            root = roots[piece[lowest]]
+            if lowest_new is not None:
+                open_circles.append((lowest_new, root))
+            elif sides == 1:
+                src_closed.append((lowest, root))
+            else:
+                tgt_closed.append((lowest, root))
+        open_circles.sort()
+        src_closed.sort()
+        tgt_closed.sort()
+        n_open, n_src = len(open_circles), len(src_closed)
+        circles_of: dict[int, list[int]] = {}
+        for bit, (_, root) in enumerate(open_circles + src_closed + tgt_closed):
+            circles_of.setdefault(root, []).append(bit)
+        dotted_roots = {roots[x] for x in dotted_pieces}
+        groups = []
+        for root, bits in circles_of.items():
+            twice_genus = 2 - chi[root] - len(bits)
+            groups.append((twice_genus // 2, bits, root in dotted_roots))
+        full = expand(groups)
+        open_mask = (1 << n_open) - 1
+        src_mask = ((1 << n_src) - 1) << n_open
+        tgt_shift = n_open + n_src
+        result: dict = {}
+        for mask, c in full.items():
+            pattern = mask & open_mask
+            src_dots = (mask & src_mask) >> n_open
+            tgt_config = mask >> tgt_shift  # dotted target circle -> ∅{-1}
+            # a source circle from ∅{+1} (cup) needs a dot; from ∅{-1} (dotted cup) takes all
+            undotted = ((1 << n_src) - 1) & ~src_dots
+            sub = src_dots
+            while True:
+                config = sub | undotted
+                target = result.setdefault((config, tgt_config), {})
+                target[pattern] = target.get(pattern, 0) + c
+                if sub == 0:
+                    break
+                sub = (sub - 1) & src_dots
+        return result
+
+    def horizontal(self, m1: tuple, m2: tuple, pattern: int, s: int) -> dict:
+        """The basis element ``pattern: m1 -> m2`` tensored with the identity of smoothing ``s``."""
+        key = (m1, m2, pattern, s)
+        found = self._horizontal.get(key)
+        if found is not None:
+            return found
+        n = self.n
+        count, comp = components(m1, m2)
+        strip = _STRIP[s]
+        piece = list(comp) + [count + strip[j] for j in range(4)]
+        dotted = [k for k in range(count) if pattern >> k & 1]
+        found = self._evaluate(self._arcs(m1, s), self._arcs(m2, s), piece, count + 2, dotted)
+        self._horizontal[key] = found
+        return found
+
+    def vertical(self, m: tuple) -> dict:
+        """The identity of ``m`` tensored with the saddle from the 0- to the 1-smoothing."""
+        found = self._vertical.get(m)
+        if found is not None:
+            return found
+        count, comp = components(m, m)
+        piece = list(comp) + [count] * 4
+        found = self._evaluate(self._arcs(m, 0), self._arcs(m, 1), piece, count + 1, ())
+        self._vertical[m] = found
+        return found
+
+
+def add_crossing(cx: Complex, boundary: list, crossing: tuple) -> tuple[Complex, list]:
+    """The complex of the tangle with ``crossing`` added, delooped and simplified.
+
+    Parameters: the current complex, its boundary labels, the PD tuple of the crossing.
+    Returns (new complex, new boundary labels).
+    """
+    step = _Step(boundary, crossing)
+    new = Complex(cx.ring)
+    ids: dict = {}  # (old id, smoothing) -> (first new id, number of configs)
+    for i in list(cx.m):
+        h, m, q = cx.h[i], cx.m[i], cx.q[i]
+        for s in (0, 1):
+            nm, closed = step.obj(m, s)
+            first = None
+            for config in range(1 << closed):
+                k = new.add_object(h + s, nm, q + s + closed - 2 * bin(config).count("1"))
+                if first is None:
+                    first = k
+            ids[(i, s)] = first
+    for i, row in cx.out.items():
+        m1 = cx.m[i]
+        for j, morphism in row.items():
+            m2 = cx.m[j]
+            for s in (0, 1):
+                si, sj = ids[(i, s)], ids[(j, s)]
+                for pattern, c in morphism.items():
+                    for (a, b), piece in step.horizontal(m1, m2, pattern, s).items():
+                        new.add_to(si + a, sj + b, piece, c)
+    for i in list(cx.m):
+        sign = -1 if cx.h[i] % 2 else 1
+        s0, s1 = ids[(i, 0)], ids[(i, 1)]
+        for (a, b), piece in step.vertical(cx.m[i]).items():
+            new.add_to(s0 + a, s1 + b, piece, sign)
+    new.simplify()
+    return new, step.new_boundary
+
+
+def scan(pd, ring: Ring, order=None, progress=None, n_plus=None, n_minus=None) -> FinalComplex:
+    """The Bar-Natan complex of a closed diagram, simplified, as a :class:`FinalComplex`.
+
+    Parameters: ``pd``, a list of PD 4-tuples (a closed diagram, every label twice);
+    ``ring``, the ground ring; ``order``, the order of crossing indices (default: the
+    boundary-keeping greedy order of :func:`movies.invariants.jones.scan_order`); ``progress``,
+    called with (crossings added, total) after each crossing; ``n_plus``/``n_minus`` the numbers
+    of positive and negative crossings (default: computed from the code).
+    Returns the final complex with the shifts ``[-n_-]{n_+ - 2 n_-}`` applied.
+
+    >>> final = scan([(1, 1, 2, 2)], RING_Z)  # a kink: homotopy equivalent to the unknot
+    >>> sorted(final.generators), final.entries
+    ([(0, -1), (0, 1)], {})
+    """
+    pd = [tuple(c) for c in pd]
+    if n_plus is None or n_minus is None:
+        from movies.diagram.pd import crossing_signs
+
+        signs = crossing_signs(pd) if pd else []
+        n_plus = sum(1 for s in signs if s > 0)
+        n_minus = len(signs) - n_plus
+    if order is None:
+        from movies.invariants.jones import scan_order
+
+        order = scan_order(pd) if pd else []
+    cx = Complex(ring)
+    cx.add_object(0, (), 0)
+    boundary: list = []
+    for done, index in enumerate(order, start=1):
+        cx, boundary = add_crossing(cx, boundary, pd[index])
+        if progress is not None:
+            progress(done, len(order))
+    return finish(cx, n_plus, n_minus)
+
+
+def finish(cx: Complex, n_plus: int, n_minus: int) -> FinalComplex:
+    """Read a complex of tangles with no boundary as a :class:`FinalComplex`."""
+    index = {}
+    gens = []
+    for i in sorted(cx.m, key=lambda i: (cx.h[i], cx.q[i], i)):
+        index[i] = len(gens)
+        gens.append((cx.h[i] - n_minus, cx.q[i] + n_plus - 2 * n_minus))
+    entries = {}
+    for i, row in cx.out.items():
+        for j, morphism in row.items():
+            c = morphism.get(0, 0)
+            if c:
+                entries[(index[i], index[j])] = c
+    return FinalComplex(gens, entries)
