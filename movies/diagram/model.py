@@ -581,6 +581,10 @@ class Hints:
     component_names: tuple[int, ...] = ()
     #: new side -> the old side it continues (for edges whose orientation the move reversed)
     side_alias: Mapping[Side, Side] = field(default_factory=dict)
+    #: new faces through these sides are named first, in this order
+    first_new: tuple[Side, ...] = ()
+    #: pairs of old components that the move joins into one
+    joined: tuple[tuple[int, int], ...] = ()
 
 
 class NameInUseError(DiagramError):
@@ -778,7 +782,13 @@ def _inherit_faces(previous: Diagram, cycles, hints: Hints, crossings, signs, lo
             faces[name] = tuple(sorted(rest))
             taken.add(name)
     pending_new.extend((cycle,) for cycle in orphans)
-    pending_new.sort(key=lambda region: min(region[0]))
+    priority = {side: i for i, side in enumerate(hints.first_new)}
+
+    def order(region) -> tuple:
+        ranks = [priority[side] for side in region[0] if side in priority]
+        return (min(ranks) if ranks else len(priority), min(region[0]))
+
+    pending_new.sort(key=order)
     for region in pending_new:
         faces[_fresh(taken, floor, chosen, "face")] = region
     return faces
@@ -792,6 +802,8 @@ def _smallest_old_side(cycle, old_face_of) -> tuple:
 def _inherit_components(previous: Diagram, components, hints: Hints):
     old_edge_component = previous.edge_component
     uf = _UnionFind()
+    for a, b in hints.joined:
+        uf.union(a, b)
     found_of = []
     for comp in components:
         found = {old_edge_component[e] for e in comp if e in old_edge_component}

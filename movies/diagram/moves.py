@@ -30,6 +30,7 @@ death       a crossingless circle component
 
 from __future__ import annotations
 
+import functools
 from dataclasses import dataclass
 from typing import Sequence
 
@@ -73,6 +74,21 @@ class _Namer:
         return Hints(face_names=self.names.faces, component_names=self.names.components, **kwargs)
 
 
+def _move(function):
+    """Report an unknown name (a DiagramError from a lookup) as a MoveError of the move."""
+
+    @functools.wraps(function)
+    def checked(*args, **kwargs):
+        try:
+            return function(*args, **kwargs)
+        except MoveError:
+            raise
+        except DiagramError as err:
+            raise MoveError(str(err)) from None
+
+    return checked
+
+
 def _rebuild(previous: Diagram, crossings, signs, loops, hints: Hints) -> Diagram:
     try:
         return assemble(crossings, signs, loops, previous=previous, hints=hints)
@@ -111,6 +127,7 @@ def _relabel_dart(crossings: dict, dart: Dart, label: int) -> None:
 # ---------------------------------------------------------------------- R1
 
 
+@_move
 def r1_add(diagram: Diagram, edge: int, hand: str, sign: int, names: NewNames | None = None) -> Diagram:
     """Add a kink on ``edge`` into the face on side ``hand`` ("L" or "R"), with crossing ``sign``.
 
@@ -124,7 +141,7 @@ def r1_add(diagram: Diagram, edge: int, hand: str, sign: int, names: NewNames | 
     """
     _check_edge(diagram, edge)
     _check_hand(hand)
-    if sign not in (1, -1):
+    if type(sign) is not int or sign not in (1, -1):
         raise MoveError(f"the sign of a kink is +1 or -1, not {sign!r}")
     namer = _Namer(diagram, names)
     crossing = namer.new("crossing")
@@ -161,6 +178,7 @@ def kinks_at(diagram: Diagram, crossing: int) -> list[int]:
     return sorted({label for label in labels if labels.count(label) == 2})
 
 
+@_move
 def r1_remove(diagram: Diagram, crossing: int, kink: int | None = None) -> Diagram:
     """Remove the kink at ``crossing``; ``kink`` names its loop edge when there are two.
 
@@ -263,6 +281,7 @@ def _same_side_unions(diagram: Diagram, pairs) -> dict[int, int]:
 # ---------------------------------------------------------------------- R2
 
 
+@_move
 def r2_add(
     diagram: Diagram, over: int, under: int, face: int, names: NewNames | None = None
 ) -> Diagram:
@@ -331,9 +350,11 @@ def r2_add(
     crossings.update(tuples)
     signs = dict(diagram.signs)
     signs.update(new_signs)
-    return _rebuild(diagram, crossings, signs, loops, namer.hints(cut=frozenset({face})))
+    bigon_first = (Side(tip, "L"), Side(tip, "R"))
+    return _rebuild(diagram, crossings, signs, loops, namer.hints(cut=frozenset({face}), first_new=bigon_first))
 
 
+@_move
 def r2_remove(diagram: Diagram, face: int) -> Diagram:
     """Remove the bigon ``face``: its two crossings go, its strands are pulled apart.
 
@@ -350,7 +371,7 @@ def r2_remove(diagram: Diagram, face: int) -> Diagram:
     cycles = diagram.face(face)
     if len(cycles) != 1 or len(cycles[0]) != 2:
         own = max(cycles, key=len) if cycles else ()
-        raise MoveError(f"face {face} is not a bigon: its boundary has {len(own)} edges" if len(cycles) == 1
+        raise MoveError(f"face {face} is not a bigon: its boundary has {len(own)} edge{'s' if len(own) != 1 else ''}" if len(cycles) == 1
                         else f"face {face} is not a bigon: it touches {len(cycles)} split pieces")
     corners = diagram.face_crossings(face)
     if len(set(corners)) != 2:
@@ -384,6 +405,7 @@ def _over_at_both(diagram: Diagram, edges: Sequence[int], corners: Sequence[int]
 # ---------------------------------------------------------------------- R3
 
 
+@_move
 def r3(diagram: Diagram, face: int, names: NewNames | None = None) -> Diagram:
     """Slide a strand across the crossing of the other two, through the triangle ``face``.
 
@@ -404,7 +426,7 @@ def r3(diagram: Diagram, face: int, names: NewNames | None = None) -> Diagram:
     if len(cycles) != 1 or len(cycles[0]) != 3:
         raise MoveError(
             f"face {face} is not a triangle: "
-            + (f"it touches {len(cycles)} split pieces" if len(cycles) > 1 else f"its boundary has {len(cycles[0])} edges")
+            + (f"it touches {len(cycles)} split pieces" if len(cycles) > 1 else f"its boundary has {len(cycles[0])} edge{'s' if len(cycles[0]) != 1 else ''}")
         )
     del own
     edges = [side.edge for side in cycles[0]]
@@ -488,6 +510,7 @@ def common_faces(diagram: Diagram, first: int, second: int) -> list[int]:
     return sorted(int(f) for f in a & b)
 
 
+@_move
 def saddle(
     diagram: Diagram, first: int, second: int, face: int | None = None, names: NewNames | None = None
 ) -> SaddleResult:
@@ -568,7 +591,8 @@ def saddle(
     if first == second:
         # the circle cut off runs along the edge: its other side faces what lay beyond the edge
         place[Side(circle, s1).other()] = diagram.side_face[Side(first, s1).other()]
-    hints = namer.hints(cut=frozenset({face}), side_alias=alias, absorb={max(beyond): min(beyond)}, place=place)
+    hints = namer.hints(cut=frozenset({face}), side_alias=alias, absorb={max(beyond): min(beyond)}, place=place,
+                        joined=((k1, k2),) if effect == "merge" else ())
     new = _rebuild(diagram, crossings, signs, loops, hints)
     reversed_component = k2 if (not respects and k1 != k2) else None
     return SaddleResult(
@@ -600,6 +624,7 @@ def _between(diagram: Diagram, first: int, second: int) -> list[int]:
     return stretch
 
 
+@_move
 def birth(diagram: Diagram, face: int, counterclockwise: bool = True, names: NewNames | None = None) -> Diagram:
     """A new crossingless circle in ``face``, bounding a small disk there.
 
@@ -619,6 +644,7 @@ def birth(diagram: Diagram, face: int, counterclockwise: bool = True, names: New
     return _rebuild(diagram, diagram.crossings, diagram.signs, loops, namer.hints(place={outside: face}))
 
 
+@_move
 def death(diagram: Diagram, component: int) -> Diagram:
     """Cap off a component that is a crossingless circle; the faces on its two sides merge.
 

@@ -59,7 +59,7 @@ def normalize_pd(code: Iterable[Sequence[int]]) -> list[tuple[int, int, int, int
         )
     if many:
         detail = ", ".join(f"{label} ({counts[label]} times)" for label in many)
-        raise PDCodeError(f"label{'s' if len(many) > 1 else ''} {detail} occur more than twice; every label must occur exactly twice")
+        raise PDCodeError(f"label{'s' if len(many) > 1 else ''} {detail} occur{'' if len(many) > 1 else 's'} more than twice; every label must occur exactly twice")
     return result
 
 
