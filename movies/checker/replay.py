@@ -276,7 +276,8 @@ class _Replay:
         here = f"after step {self.number}" if self.number else "at the start"
         if what in ("components", "crossings"):
             actual = frame.component_count() if what == "components" else frame.crossing_count()
-            self._judge(statement, actual == a["value"], f"{what} {a['value']}", f"the frame {here} has {actual} {what}")
+            self._judge(statement, actual == a["value"], f"{what} {a['value']}",
+                        f"the frame {here} has {_count(actual, what[:-1])}")
         elif what == "crossingless":
             self._judge(statement, frame.is_crossingless(), "crossingless", f"the frame {here} has {frame.crossing_count()} crossings")
         elif what in ("unlink", "isotopic"):
@@ -321,9 +322,9 @@ class _Replay:
             holds = len(comps) == 1 and comps[0].orientable and comps[0].euler_characteristic == 1 and comps[0].boundary == 1
             detail = _shape(s)
         elif fact == "connected":
-            holds, detail = s.connected, f"the surface has {len(comps)} components"
+            holds, detail = s.connected, f"the surface has {_count(len(comps), 'component')}"
         elif fact == "components":
-            holds, detail = len(comps) == value, f"the surface has {len(comps)} components"
+            holds, detail = len(comps) == value, f"the surface has {_count(len(comps), 'component')}"
         elif fact == "ribbon":
             empty_end = self.frame.is_empty()
             holds = empty_end and s.births == 0
@@ -345,11 +346,15 @@ class _Replay:
             self.find("false", statement, f"the surface is claimed to be {said}", detail, step=None)
 
 
+def _count(n: int, word: str) -> str:
+    return f"{n} {word}{'' if n == 1 else 's'}"
+
+
 def _shape(s: Surface) -> str:
     parts = []
     for c in s.components:
-        kind = f"genus {c.genus}" if c.orientable else f"{c.crosscaps} crosscaps"
-        parts.append(f"{kind}, {c.boundary} boundary circle{'s' if c.boundary != 1 else ''}")
+        kind = f"genus {c.genus}" if c.orientable else _count(c.crosscaps, "crosscap")
+        parts.append(f"{kind}, {_count(c.boundary, 'boundary circle')}")
     return "; ".join(parts) if parts else "empty"
 
 

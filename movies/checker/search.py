@@ -48,6 +48,34 @@ def describe_target(target: dict) -> str:
             : "a crossingless diagram"}[kind]
 
 
+def statement_text(record) -> str:
+    """A found move as a movie statement that replays it.
+
+    >>> from movies.diagram.simplify import MoveRecord
+    >>> statement_text(MoveRecord("R2+", over=3, under=5, face=2))
+    'R2 add 3 over 5 in face 2'
+    >>> statement_text(MoveRecord("R1+", edge=4, hand="R", sign=-1))
+    'R1 add 4 right -'
+    """
+    kind = record.kind
+    if kind == "R1+":
+        return f"R1 add {record.edge} {'left' if record.hand == 'L' else 'right'} {'+' if record.sign > 0 else '-'}"
+    if kind == "R1-":
+        return f"R1 remove {record.crossing}" + (f" kink {record.kink}" if record.kink is not None else "")
+    if kind == "R2+":
+        return f"R2 add {record.over} over {record.under} in face {record.face}"
+    if kind == "R2-":
+        return f"R2 remove face {record.face}"
+    return f"R3 face {record.face}"
+
+
+def _budget(seconds: float):
+    from movies.diagram.simplify import Budget
+
+    # moves are the real limit (so that a run can be repeated); seconds are the safety net
+    return Budget(moves=max(200, int(600 * seconds)), seconds=float(seconds))
+
+
 def simplify_frame(frame: Diagram, target: dict, budget: float) -> Simplified:
     """Run the search toward a simplify step's target."""
     kind = target["target"]
@@ -58,8 +86,8 @@ def simplify_frame(frame: Diagram, target: dict, budget: float) -> Simplified:
         goal = target["diagram"]
     from movies.diagram import simplify as engine
 
-    result = engine.simplify(frame, target=goal, budget=budget)
-    return Simplified(result.diagram, bool(result.reached), tuple(engine.describe(m) for m in result.moves))
+    result = engine.simplify(frame, target=goal, budget=_budget(budget))
+    return Simplified(result.diagram, bool(result.reached), tuple(statement_text(m) for m in result.moves))
 
 
 def certify(frame: Diagram, claimed: Diagram, budget: float) -> Certification:
@@ -70,7 +98,8 @@ def certify(frame: Diagram, claimed: Diagram, budget: float) -> Certification:
             return Certification(True, (), dict(match["components"]))
     from movies.diagram import simplify as engine
 
-    certificate = engine.certify_isotopy(frame, claimed, budget=budget)
+    certificate = engine.certify_isotopy(frame, claimed, budget=_budget(budget))
     if certificate is None:
         return Certification(False)
-    return Certification(True, tuple(engine.describe(m) for m in certificate.moves), dict(certificate.components))
+    return Certification(True, tuple(statement_text(m) for m in certificate.moves),
+                         dict(certificate.names["components"]))

@@ -121,10 +121,10 @@ def check_text(data: dict, source: str) -> str:
             orient += f" (step {s['orientation_broken_at_step']} breaks the orientation)"
         lines.append(f"         {orient}")
         for index, c in enumerate(s["components"], start=1):
-            shape = f"genus {c['genus']}" if c["orientable"] else f"{c['crosscaps']} crosscaps"
+            shape = f"genus {c['genus']}" if c["orientable"] else _plural(c["crosscaps"], "crosscap")
             lines.append(
                 f"         component {index}: {shape}, χ = {c['euler_characteristic']}, "
-                f"{c['boundary_start']} circle(s) on the start, {c['boundary_end']} on the end"
+                f"{_plural(c['boundary_start'], 'boundary circle')} on the start, {c['boundary_end']} on the end"
             )
         lines.append(f"         every component meets the start: {'yes' if s['every_component_meets_start'] else 'no'}; "
                      f"the end: {'yes' if s['every_component_meets_end'] else 'no'}")

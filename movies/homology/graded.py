@@ -32,7 +32,8 @@ def _field(p: int):
     """(normalise, divide) for Q (p = 0, Fractions) or F_p."""
     if p:
         return (lambda v: v % p), (lambda a, b: a * pow(b, -1, p) % p)
-    return Fraction, (lambda a, b: a / b)
+    # integers stay integers while the pivots are +-1; Fractions only when needed
+    return (lambda v: v), (lambda a, b: a * b if b in (1, -1) else Fraction(a) / b)
 
 
 def _graded_pivots(sources, targets, entries, q, p: int):
@@ -56,17 +57,18 @@ def _graded_pivots(sources, targets, entries, q, p: int):
     pivots = []
     # bucket the entries by their power of H so that the smallest is found fast
     while rows:
+        # the smallest power of H; among those a coefficient +-1 if there is one
         best = None
         for i, row in rows.items():
             qi = q[i]
-            for j in row:
-                k = q[j] - qi
-                if best is None or k < best[0]:
-                    best = (k, i, j)
-                    if k == 0:
-                        break
-            if best is not None and best[0] == 0:
+            for j, c in row.items():
+                key = (q[j] - qi, c not in (1, -1))
+                if best is None or key < best[0]:
+                    best = (key, i, j)
+            if best[0] == (0, False):
                 break
+        (k, _), i, j = best
+        best = (k, i, j)
         k, i, j = best
         prow = rows.pop(i)
         for jj in prow:
@@ -98,11 +100,12 @@ def _by_degree(final):
     return by
 
 
-def bar_natan_module(final, p: int) -> dict:
+def bar_natan_module(final, p: int, degrees=None) -> dict:
     """Bar-Natan homology over F[H], F = Q (``p = 0``) or F_p.
 
     Returns {"free": {(h, q): rank}, "torsion": {(h, q): {k: count}}}: ``rank`` copies of F[H]
     generated in bidegree ``(h, q)``, and ``count`` summands F[H]/(H^k) generated there.
+    With ``degrees`` (a set of homological degrees) only those degrees are computed.
 
     >>> from movies.homology.scanning import FinalComplex
     >>> bar_natan_module(FinalComplex([(0, -1), (1, 3)], {(0, 1): 1}), 0)
@@ -114,15 +117,19 @@ def bar_natan_module(final, p: int) -> dict:
     # of d_(h-1), as multisets of bidegrees (the two eliminations use different bases)
     free: dict = {}
     for hq in final.generators:
-        free[hq] = free.get(hq, 0) + 1
+        if degrees is None or hq[0] in degrees:
+            free[hq] = free.get(hq, 0) + 1
     torsion: dict = {}
     for h in sorted(by):
         if h + 1 not in by:
             continue
+        if degrees is not None and h not in degrees and h + 1 not in degrees:
+            continue
         for i, j, k in _graded_pivots(by[h], by[h + 1], final.entries, q, p):
             for g in (i, j):
-                free[final.generators[g]] -= 1
-            if k:
+                if final.generators[g] in free:
+                    free[final.generators[g]] -= 1
+            if k and (degrees is None or h + 1 in degrees):
                 key = final.generators[j]
                 torsion.setdefault(key, {})
                 torsion[key][k] = torsion[key].get(k, 0) + 1

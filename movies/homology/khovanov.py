@@ -32,7 +32,7 @@ from movies.diagram.model import Diagram
 from movies.homology.errors import FieldError, HomologyError, NotAKnotError
 from movies.homology.graded import bar_natan_module, khovanov_integral, khovanov_ranks
 from movies.homology.rings import Ring, parse_field
-from movies.homology.scanning import Complex, FinalComplex, add_crossing, finish
+from movies.homology.scanning import Complex, FinalComplex, finish, scan_complex
 
 __all__ = [
     "khovanov_homology",
@@ -60,14 +60,7 @@ def _signs(d: Diagram) -> tuple[int, int]:
 
 
 def _run(pd: list, order: list, ring: Ring, progress: Progress | None) -> Complex:
-    cx = Complex(ring)
-    cx.add_object(0, (), 0)
-    boundary: list = []
-    for done, index in enumerate(order, start=1):
-        cx, boundary = add_crossing(cx, boundary, pd[index])
-        if progress is not None:
-            progress(done, len(order))
-    return cx
+    return scan_complex(pd, ring, order, progress)
 
 
 def _order(pd: list) -> list:
@@ -214,7 +207,11 @@ def rasmussen_s(diagram, field: str = "Q", progress: Progress | None = None) -> 
         raise NotAKnotError(
             f"s is computed here for knots only; this diagram has {d.component_count()} "
             "components")
-    free = bar_natan_homology(d, field, progress)["free"]
+    ring = parse_field(field)
+    if ring.name == "Z":
+        raise FieldError("s is defined over a field: use 'Q' or 'F<p>'")
+    final = bar_natan_complex(d, "Z" if ring.name == "Q" else ring.name, progress)
+    free = bar_natan_module(final, ring.p, degrees={0})["free"]  # s needs degree 0 only
     degrees = sorted(q for (h, q), r in free.items() for _ in range(r))
     if len(degrees) != 2 or any(h != 0 for h, _ in free) or degrees[1] - degrees[0] != 2:
         raise HomologyError(f"internal error: the free part of Bar-Natan homology of a knot is "

@@ -28,12 +28,13 @@ equivalences.
 
 from __future__ import annotations
 
+import heapq
 from dataclasses import dataclass, field
 
 from movies.homology.cobordisms import components, compose_morphisms, expand
 from movies.homology.rings import Ring
 
-__all__ = ["FinalComplex", "Complex", "scan", "RING_Z"]
+__all__ = ["FinalComplex", "Complex", "add_crossing", "scan_complex", "scan", "finish", "RING_Z"]
 
 RING_Z = Ring("Z", 0)
 
@@ -149,20 +150,37 @@ class Complex:
         self.remove(b2)
         return changed
 
-    def simplify(self, candidates=None) -> None:
-        """Eliminate isomorphisms until none is left (``candidates``: entries to look at first)."""
-        if candidates is None:
-            candidates = [(i, j) for i, row in self.out.items() for j in row]
-        stack = list(candidates)
-        while stack:
-            i, j = stack.pop()
+    def simplify(self) -> None:
+        """Eliminate isomorphisms until none is left, cheapest first.
+
+        The cost of eliminating ``b1 -> b2`` is the number of compositions it makes,
+        (entries into b2) x (entries out of b1); taking the cheapest first (Markowitz's rule)
+        keeps the fill-in low. Costs only grow stale by changing, so a popped candidate whose
+        cost has risen goes back with its new cost.
+        """
+        heap = []
+        for i, row in self.out.items():
+            for j in row:
+                if self.unit_of(i, j) is not None:
+                    heap.append((self._cost(i, j), i, j))
+        heapq.heapify(heap)
+        while heap:
+            cost, i, j = heapq.heappop(heap)
             if i not in self.m or j not in self.m:
                 continue
             u = self.unit_of(i, j)
             if u is None:
                 continue
-            changed = self.eliminate(i, j, u)
-            stack.extend(changed)
+            now = self._cost(i, j)
+            if now > cost:
+                heapq.heappush(heap, (now, i, j))
+                continue
+            for x, y in self.eliminate(i, j, u):
+                if self.unit_of(x, y) is not None:
+                    heapq.heappush(heap, (self._cost(x, y), x, y))
+
+    def _cost(self, i: int, j: int) -> int:
+        return (len(self.inn[j]) - 1) * (len(self.out[i]) - 1)
 
     def size(self) -> int:
         return len(self.m)
@@ -207,6 +225,7 @@ class _Step:
         self._objects: dict = {}
         self._horizontal: dict = {}
         self._vertical: dict = {}
+        self._geometries: dict = {}
 
     # --------------------------------------------------------------- objects
     def _arcs(self, m: tuple, s: int) -> list:
@@ -254,13 +273,14 @@ class _Step:
         return found
 
     # --------------------------------------------------------------- morphisms
-    def _evaluate(self, top: list, bot: list, piece: list, pieces: int, dotted_pieces) -> dict:
-        """Glue disks and strips; deloop; return {(src config, tgt config): {pattern: coeff}}.
+    def _geometry(self, top: list, bot: list, piece: list, pieces: int):
+        """How the disks and strips glue: (root of each piece, surfaces, n_open, n_src).
 
         ``top``/``bot``: arc partner of each point in the source/target tangle; ``piece[p]``:
-        the disk holding the vertical interval at point ``p``; ``dotted_pieces``: set of pieces
-        with a dot. Source closed circle ``i`` in config bit ``i`` = 1 is ∅{-1}, 0 is ∅{+1};
-        same for the target.
+        the disk holding the vertical interval at point ``p``. ``surfaces`` lists
+        (root, genus, circle bits) for each connected glued surface; circle bits number the
+        open circles first (by smallest new position), then the closed circles of the source,
+        then those of the target (each by smallest point).
         """
         link = self.link
         size = len(top)
@@ -328,12 +348,22 @@ class _Step:
         circles_of: dict[int, list[int]] = {}
         for bit, (_, root) in enumerate(open_circles + src_closed + tgt_closed):
             circles_of.setdefault(root, []).append(bit)
-        dotted_roots = {roots[x] for x in dotted_pieces}
-        groups = []
+        surfaces = []
         for root, bits in circles_of.items():
             twice_genus = 2 - chi[root] - len(bits)
-            groups.append((twice_genus // 2, bits, root in dotted_roots))
-        full = expand(groups)
+            surfaces.append((root, twice_genus // 2, bits))
+        return roots, surfaces, n_open, n_src
+
+    @staticmethod
+    def _evaluate(geometry, dotted_pieces) -> dict:
+        """The glued surface with dots on ``dotted_pieces``, delooped.
+
+        Returns {(source config, target config): {pattern: coeff}}; bit ``i`` of a config set
+        means closed circle ``i`` is replaced by ∅{-1}, clear by ∅{+1}.
+        """
+        roots, surfaces, n_open, n_src = geometry
+        dotted_roots = {roots[x] for x in dotted_pieces}
+        full = expand([(g, bits, root in dotted_roots) for root, g, bits in surfaces])
         open_mask = (1 << n_open) - 1
         src_mask = ((1 << n_src) - 1) << n_open
         tgt_shift = n_open + n_src
@@ -360,12 +390,16 @@ class _Step:
         found = self._horizontal.get(key)
         if found is not None:
             return found
-        n = self.n
+        gkey = (m1, m2, s)
+        geometry = self._geometries.get(gkey)
         count, comp = components(m1, m2)
-        strip = _STRIP[s]
-        piece = list(comp) + [count + strip[j] for j in range(4)]
+        if geometry is None:
+            strip = _STRIP[s]
+            piece = list(comp) + [count + strip[j] for j in range(4)]
+            geometry = self._geometry(self._arcs(m1, s), self._arcs(m2, s), piece, count + 2)
+            self._geometries[gkey] = geometry
         dotted = [k for k in range(count) if pattern >> k & 1]
-        found = self._evaluate(self._arcs(m1, s), self._arcs(m2, s), piece, count + 2, dotted)
+        found = self._evaluate(geometry, dotted)
         self._horizontal[key] = found
         return found
 
@@ -376,7 +410,7 @@ class _Step:
             return found
         count, comp = components(m, m)
         piece = list(comp) + [count] * 4
-        found = self._evaluate(self._arcs(m, 0), self._arcs(m, 1), piece, count + 1, ())
+        found = self._evaluate(self._geometry(self._arcs(m, 0), self._arcs(m, 1), piece, count + 1), ())
         self._vertical[m] = found
         return found
 
@@ -418,6 +452,26 @@ def add_crossing(cx: Complex, boundary: list, crossing: tuple) -> tuple[Complex,
     return new, step.new_boundary
 
 
+def scan_complex(pd, ring: Ring, order, progress=None) -> Complex:
+    """The simplified complex of a PD code whose crossings are added in ``order``.
+
+    Parameters: ``pd``, a list of PD 4-tuples (labels that occur once stay on the boundary);
+    ``ring``; ``order``, crossing indices; ``progress(done, total)``, called after each crossing.
+    Returns the :class:`Complex` of the resulting tangle.
+
+    >>> scan_complex([(1, 5, 2, 4), (3, 1, 4, 6), (5, 3, 6, 2)], RING_Z, [0, 1, 2]).size()
+    6
+    """
+    cx = Complex(ring)
+    cx.add_object(0, (), 0)
+    boundary: list = []
+    for done, index in enumerate(order, start=1):
+        cx, boundary = add_crossing(cx, boundary, pd[index])
+        if progress is not None:
+            progress(done, len(order))
+    return cx
+
+
 def scan(pd, ring: Ring, order=None, progress=None, n_plus=None, n_minus=None) -> FinalComplex:
     """The Bar-Natan complex of a closed diagram, simplified, as a :class:`FinalComplex`.
 
@@ -443,14 +497,7 @@ def scan(pd, ring: Ring, order=None, progress=None, n_plus=None, n_minus=None) -
         from movies.invariants.jones import scan_order
 
         order = scan_order(pd) if pd else []
-    cx = Complex(ring)
-    cx.add_object(0, (), 0)
-    boundary: list = []
-    for done, index in enumerate(order, start=1):
-        cx, boundary = add_crossing(cx, boundary, pd[index])
-        if progress is not None:
-            progress(done, len(order))
-    return finish(cx, n_plus, n_minus)
+    return finish(scan_complex(pd, ring, order, progress), n_plus, n_minus)
 
 
 def finish(cx: Complex, n_plus: int, n_minus: int) -> FinalComplex:

@@ -142,6 +142,7 @@ class _Field:
         self.order = order
         self.modulus = _cyclotomic_polynomial(order)
         self.degree = len(self.modulus) - 1
+        self.sparse_modulus = [(i, c) for i, c in enumerate(self.modulus[:-1]) if c]
         self.zero = ((0,) * self.degree, 1)
         self.one = self.power(0)
 
@@ -160,15 +161,19 @@ class _Field:
         return tuple(numerators), denominator
 
     def reduce(self, coefficients: list[int]) -> list[int]:
-        degree = self.degree
-        modulus = self.modulus
+        """Coefficients of a polynomial in ζ, reduced modulo ``ζ^order = 1`` and the cyclotomic polynomial."""
+        degree, order = self.degree, self.order
+        if len(coefficients) > order:
+            folded = coefficients[:order]
+            for k in range(order, len(coefficients)):
+                folded[k % order] += coefficients[k]
+            coefficients = folded
         for k in range(len(coefficients) - 1, degree - 1, -1):
             value = coefficients[k]
             if value:
                 base = k - degree
-                for i in range(degree):
-                    if modulus[i]:
-                        coefficients[base + i] -= value * modulus[i]
+                for i, c in self.sparse_modulus:
+                    coefficients[base + i] -= value * c
         return coefficients[:degree] + [0] * (degree - len(coefficients[:degree]))
 
     def power(self, exponent: int):
@@ -194,13 +199,28 @@ class _Field:
 
     def mul(self, x, y):
         (a, p), (b, q) = x, y
-        product = [0] * (2 * self.degree - 1)
-        for i, u in enumerate(a):
-            if u:
-                for j, v in enumerate(b):
-                    if v:
-                        product[i + j] += u * v
-        return self.normal(self.reduce(product), p * q)
+        # Kronecker substitution: pack each vector into one integer, multiply once, unpack
+        bound = max(map(abs, a)) * max(map(abs, b)) * self.degree
+        if bound == 0:
+            return self.zero
+        width = bound.bit_length() + 2
+        packed = 0
+        for u in reversed(a):
+            packed = (packed << width) + u
+        other = 0
+        for v in reversed(b):
+            other = (other << width) + v
+        product = packed * other
+        mask, half, base = (1 << width) - 1, 1 << (width - 1), 1 << width
+        coefficients = []
+        for _ in range(2 * self.degree - 1):
+            digit = product & mask
+            product >>= width
+            if digit >= half:
+                digit -= base
+                product += 1
+            coefficients.append(digit)
+        return self.normal(self.reduce(coefficients), p * q)
 
     def is_zero(self, x) -> bool:
         return not any(x[0])
@@ -212,50 +232,32 @@ class _Field:
                 total[(-j) % self.order] += u
         return self.normal(self.reduce(total), x[1])
 
+    def galois(self, x, exponent: int):
+        """The image of ``x`` under the automorphism ``ζ -> ζ^exponent``."""
+        total = [0] * (self.order + 1)
+        for j, u in enumerate(x[0]):
+            if u:
+                total[(j * exponent) % self.order] += u
+        return self.normal(self.reduce(total), x[1])
+
     def inverse(self, x):
-        """By the extended Euclidean algorithm over the rationals, modulo the cyclotomic polynomial."""
-        def trim(p):
-            while p and p[-1] == 0:
-                p.pop()
-            return p
-
-        def divmod_poly(a, b):
-            a = list(a)
-            quotient = [Fraction(0)] * max(len(a) - len(b) + 1, 1)
-            while len(trim(a)) >= len(b):
-                shift = len(a) - len(b)
-                factor = a[-1] / b[-1]
-                quotient[shift] = factor
-                for i, value in enumerate(b):
-                    a[shift + i] -= factor * value
-            return quotient, a
-
-        def sub_mul(a, q, b):
-            result = [Fraction(0)] * max(len(a), len(q) + len(b) - 1)
-            for i, value in enumerate(a):
-                result[i] += value
-            for i, u in enumerate(q):
-                if u:
-                    for j, v in enumerate(b):
-                        result[i + j] -= u * v
-            return trim(result)
-
-        r0 = [Fraction(v) for v in self.modulus]
-        r1 = trim([Fraction(v, x[1]) for v in x[0]])
-        if not r1:
+        """``1/x`` as the product of the other Galois conjugates of ``x`` over its norm."""
+        if self.is_zero(x):
             raise ZeroDivisionError("inverse of zero in a cyclotomic field")
-        s0, s1 = [], [Fraction(1)]
-        while len(r1) > 1:
-            quotient, remainder = divmod_poly(r0, r1)
-            r0, r1 = r1, trim(remainder)
-            s0, s1 = s1, sub_mul(s0, quotient, s1)
-        constant = r1[0]
-        coefficients = [value / constant for value in s1] + [Fraction(0)] * self.degree
-        coefficients = coefficients[: self.degree]
-        denominator = 1
-        for value in coefficients:
-            denominator = denominator * value.denominator // gcd(denominator, value.denominator)
-        return self.normal([int(value * denominator) for value in coefficients], denominator)
+        numerators, denominator = x
+        whole = (numerators, 1)
+        product = self.one
+        for exponent in range(2, self.order):
+            if gcd(exponent, self.order) == 1:
+                product = self.mul(product, self.galois(whole, exponent))
+        norm = self.mul(product, whole)  # a rational number: Π of all conjugates
+        (constant, *rest), norm_denominator = norm
+        if any(rest):
+            raise AssertionError("the norm is not rational")  # pragma: no cover
+        # 1/x = denominator · product / norm
+        scale_numerator = denominator * norm_denominator
+        return self.normal([u * scale_numerator * (1 if constant > 0 else -1) for u in product[0]],
+                           product[1] * abs(constant))
 
 
 # ---------------------------------------------------------------------------- exact real signs
@@ -274,53 +276,63 @@ def _chebyshev_first_kind(count: int) -> tuple[tuple[int, ...], ...]:
     return tuple(tuple(p) for p in polys[:count])
 
 
-def _roots_above(order: int, point: Fraction) -> int:
-    """How many of the numbers cos(πj/order), 0 < j < order, are larger than ``point``.
+def _roots_above(order: int, numerator: int, exponent: int) -> int:
+    """How many of the numbers cos(πj/order), 0 < j < order, exceed ``numerator / 2^exponent``.
 
     Those are the roots of the Chebyshev polynomial ``U_{order-1}``; ``U_0, ..., U_{order-1}``
-    is a Sturm chain (three-term recurrence), so the count is the number of sign changes.
+    is a Sturm chain (three-term recurrence), so the count is the number of sign changes in it.
+    ``W_k = 2^(k·exponent) U_k(x)`` keeps the recurrence in integers.
     """
-    changes, last = 0, 1  # U_0 = 1
-    previous, current = Fraction(1), 2 * point
+    changes, last = 0, 1  # W_0 = 1
+    square = 1 << (2 * exponent)
+    previous, current = 1, 2 * numerator
     for _ in range(1, order):
-        if current != 0:
+        if current:
             if (current > 0) != (last > 0):
                 changes += 1
             last = current
-        previous, current = current, 2 * point * current - previous
+        previous, current = current, 2 * numerator * current - square * previous
     return changes
 
 
+class _Cosine:
+    """Ever finer dyadic intervals around y = cos(π·index/order), a simple root of ``U_{order-1}``.
+
+    ``levels[i] = (lo, exponent)`` stands for the interval ``[lo, lo + 1] / 2^exponent`` that
+    holds y and no other root; each level halves the previous one.  Shared by all signs.
+    """
+
+    def __init__(self, order: int, index: int):
+        self.order, self.index = order, index
+        lo, exponent = (0 if _roots_above(order, 0, 0) >= index else -1), 0
+        while _roots_above(order, lo, exponent) - _roots_above(order, lo + 1, exponent) > 1:
+            lo, exponent = self._halve(lo, exponent)
+        self.levels = [(lo, exponent)]
+
+    def _halve(self, lo: int, exponent: int) -> tuple[int, int]:
+        lo, exponent = 2 * lo, exponent + 1
+        if _roots_above(self.order, lo + 1, exponent) >= self.index:  # y > midpoint
+            lo += 1
+        return lo, exponent
+
+    def level(self, number: int) -> tuple[int, int]:
+        while len(self.levels) <= number:
+            self.levels.append(self._halve(*self.levels[-1]))
+        return self.levels[number]
+
+
 @lru_cache(maxsize=None)
-def _isolate_cosine(order: int, index: int) -> tuple[Fraction, Fraction]:
-    """A rational interval (lo, hi) holding cos(π·index/order) and no other root of ``U_{order-1}``."""
-    lo, hi = Fraction(-1), Fraction(1)
-    while True:
-        above_lo, above_hi = _roots_above(order, lo), _roots_above(order, hi)
-        if above_lo == index and above_hi == index - 1:
-            return lo, hi
-        middle = (lo + hi) / 2
-        if _roots_above(order, middle) >= index:
-            lo = middle
-        else:
-            hi = middle
-
-
-def _evaluate(coefficients: Sequence[int], point: Fraction) -> Fraction:
-    total = Fraction(0)
-    for c in reversed(coefficients):
-        total = total * point + c
-    return total
+def _cosine(order: int, index: int) -> _Cosine:
+    return _Cosine(order, index)
 
 
 def _sign_of_real(field: _Field, element, step: int) -> int:
     """The sign of a real element of ``Q(ζ)`` under ``ζ -> e^(2πi·step/order)``."""
     order = field.order
-    numerators = element[0]
     chebyshev = _chebyshev_first_kind(field.degree)
     # Re(ζ^j) = cos(2π·step·j/order) = T_j(y) with y = cos(2π·step/order)
     poly = [0] * field.degree
-    for j, value in enumerate(numerators):
+    for j, value in enumerate(element[0]):
         if value:
             for i, c in enumerate(chebyshev[j]):
                 poly[i] += value * c
@@ -331,17 +343,22 @@ def _sign_of_real(field: _Field, element, step: int) -> int:
     index = (2 * step) % (2 * order)
     if index > order:
         index = 2 * order - index
-    lo, hi = _isolate_cosine(order, index)
+    cosine = _cosine(order, index)
+    degree = len(poly) - 1
     slope = sum(k * abs(c) for k, c in enumerate(poly))  # bounds |poly'| on [-1, 1]
+    number = 0
     while True:
-        middle = (lo + hi) / 2
-        value = _evaluate(poly, middle)
-        if abs(value) * 2 > slope * (hi - lo):
+        lo, exponent = cosine.level(number)
+        # the midpoint m = (2·lo + 1) / 2^q, q = exponent + 1; value = 2^(q·degree)·poly(m)
+        q = exponent + 1
+        middle = 2 * lo + 1
+        value = 0
+        for i in range(degree, -1, -1):
+            value = value * middle + (poly[i] << (q * (degree - i)))
+        # |poly(x) - poly(m)| ≤ slope·2^-q on the interval, which holds y
+        if abs(value) > slope << (q * degree - q):
             return 1 if value > 0 else -1
-        if _roots_above(order, middle) >= index:  # y > middle
-            lo = middle
-        else:
-            hi = middle
+        number += 1
 
 
 def _hermitian_signature(field: _Field, matrix: list[list], step: int) -> tuple[int, int, int]:
@@ -376,14 +393,16 @@ def _hermitian_signature(field: _Field, matrix: list[list], step: int) -> tuple[
         active.remove(pivot)
         inverse = field.inverse(value)
         row = work[pivot]
-        for i in active:
+        for place, i in enumerate(active):
             if field.is_zero(work[i][pivot]):
                 continue
             factor = field.mul(work[i][pivot], inverse)
             target = work[i]
-            for j in active:
+            for j in active[place:]:  # the Schur complement is Hermitian: fill the rest by symmetry
                 if not field.is_zero(row[j]):
                     target[j] = field.sub(target[j], field.mul(factor, row[j]))
+                    if j != i:
+                        work[j][i] = field.conjugate(target[j])
     return positive, negative, size - positive - negative
 
 

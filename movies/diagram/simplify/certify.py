@@ -33,7 +33,7 @@ from dataclasses import dataclass
 from movies.diagram.isotopy import canonical_form, isomorphism, reflect_and_switch
 from movies.diagram.model import Diagram, Side, canonical_cycle
 from movies.diagram.simplify.records import CHANGE, MoveRecord, apply, candidates, inverse, translate
-from movies.diagram.simplify.search import Budget, Meter, Step, _greedy, descend, undoable
+from movies.diagram.simplify.search import Budget, Meter, Step, _greedy, child_key, descend, undoable
 from movies.errors import DiagramError, MoveError
 
 __all__ = ["IsotopyCertificate", "certify_isotopy", "rename"]
@@ -81,7 +81,8 @@ def rename(diagram: Diagram, names: dict[str, dict[int, int]]) -> Diagram:
             frozenset(edges[e] for e in diagram.loops),
             {components[k]: _from_smallest(tuple(edges[e] for e in path)) for k, path in diagram.components.items()},
             dict(sorted(
-                (faces[f], tuple(sorted(canonical_cycle(Side(edges[s.edge], s.hand) for s in cycle) for cycle in cycles)))
+                (faces[f], tuple(sorted(canonical_cycle(Side(edges[s.edge], s.hand) for s in cycle)
+                                        for cycle in cycles)))
                 for f, cycles in diagram.faces.items()
             )),
         )
@@ -117,8 +118,11 @@ class _Side:
         self.reversible = reversible
         self.heap: list = []
         self.counter = 0
+        #: for the second side: the form of each frame reflected, with crossings switched
+        self.mirror_forms: list[tuple] = []
         if reversible:
-            self.mirrored[canonical_form(reflect_and_switch(start))] = 0
+            self.mirror_forms.append(canonical_form(reflect_and_switch(start)))
+            self.mirrored[self.mirror_forms[0]] = 0
         self.push(0, 0)
 
     def push(self, index: int, depth: int) -> None:
@@ -127,7 +131,8 @@ class _Side:
         kinds = _LATERAL + (("R2+",) if n + 2 <= self.cap else ())
         for record in candidates(d, kinds):
             self.counter += 1
-            heapq.heappush(self.heap, (n + CHANGE[record.kind], depth + 1, self.counter, index, record))
+            # breadth-first here: two searches meet sooner when neither runs deep alone
+            heapq.heappush(self.heap, (*child_key(d, record), depth + 1, self.counter, index, record))
 
     def path(self, index: int) -> list[Step]:
         steps = []
@@ -139,7 +144,7 @@ class _Side:
 
     def expand(self) -> tuple[int, tuple] | None:
         """Build the next child; returns its index and form, or None if it is not new."""
-        _, depth, _, parent, record = heapq.heappop(self.heap)
+        _, _, depth, _, parent, record = heapq.heappop(self.heap)
         before = self.nodes[parent][0]
         try:
             after = apply(record, before)
@@ -154,7 +159,8 @@ class _Side:
         index = len(self.nodes) - 1
         self.seen[form] = index
         if self.reversible:
-            self.mirrored.setdefault(canonical_form(reflect_and_switch(after)), index)
+            self.mirror_forms.append(canonical_form(reflect_and_switch(after)))
+            self.mirrored.setdefault(self.mirror_forms[-1], index)
         self.push(index, depth)
         return index, form
 
@@ -170,7 +176,7 @@ def _meet(a: Diagram, b: Diagram, meter: Meter, lift: int):
         return [], [], True
     while one.heap or two.heap:
         # the side whose next child is lower goes first; ties go to the first side
-        turn = one if not two.heap or (one.heap and one.heap[0][:2] <= two.heap[0][:2]) else two
+        turn = one if not two.heap or (one.heap and one.heap[0][:3] <= two.heap[0][:3]) else two
         if not meter.spend():
             return None
         found = turn.expand()
@@ -185,7 +191,7 @@ def _meet(a: Diagram, b: Diagram, meter: Meter, lift: int):
         else:
             if form in one.seen:
                 return one.path(one.seen[form]), two.path(index), False
-            mirrored = canonical_form(reflect_and_switch(two.nodes[index][0]))
+            mirrored = two.mirror_forms[index]
             if mirrored in one.seen:
                 return one.path(one.seen[mirrored]), two.path(index), True
     return None

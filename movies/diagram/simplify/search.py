@@ -5,10 +5,13 @@ The strategy, repeated until the target is met or nothing more is found:
 1. greedy: R1 and R2 removals while any applies (the first in :func:`candidates` order);
 2. when stuck, a best-first search from the stuck diagram over R3 moves and removals, then
    R2 additions (at most ``lift`` of them above the stuck crossing count, each followed by R3s
-   and removals), ordered by crossing count and then depth, with a visited set of canonical
-   forms; it stops at the first diagram with fewer crossings than the stuck one. A child
-   is built only when the search reaches it, so the many R2 additions of a diagram cost
-   nothing until the R3 moves and removals at a lower crossing count have all been tried.
+   and removals), with a visited set of canonical forms. Children are ordered by crossing
+   count; among R2 additions, those that make a triangle beside their bigon where an R3 can
+   follow come first (:func:`child_key`); then the deepest child first, so that what an R2
+   addition opened is followed to its end before the next addition is tried. It stops at
+   the first diagram with fewer crossings than the stuck one. A child is built only when the
+   search reaches it, so the many R2 additions of a diagram cost nothing until the R3 moves
+   and removals at a lower crossing count have all been tried.
 
 Every move applied counts against the budget (:class:`Budget`), a number of moves with a
 wall-clock cap as a safety net only; two runs with the same inputs and budget give the same
@@ -140,6 +143,51 @@ class SimplifyResult:
     steps: list[Step] = field(default_factory=list, repr=False)
 
 
+def _corner_gap(diagram: Diagram, record: MoveRecord) -> int:
+    """For an R2 addition, how promising it is: 0 best, 3 worst.
+
+    Pushing edge ``over`` across the face to edge ``under`` cuts the face in two; when one
+    side ``s`` of the face lies between them, the part there is a triangle (``over``,
+    ``s``, ``under``). An R3 move can follow at once when ``over`` is also over at its corner
+    with ``s``, or ``s`` is over at both ends: 0. Another triangle: 1; no triangle: 2;
+    edges of two split pieces: 3.
+    """
+    for cycle in diagram.faces[record.face]:
+        edges = [side.edge for side in cycle]
+        if record.over not in edges or record.under not in edges:
+            continue
+        i, j, size = edges.index(record.over), edges.index(record.under), len(edges)
+        if (j - i) % size == 2:
+            between, corner_end = cycle[(i + 1) % size], True
+        elif (i - j) % size == 2:
+            between, corner_end = cycle[(i - 1) % size], False
+        else:
+            return 2
+        tail, head = diagram.edge_ends[record.over] if record.over in diagram.edge_ends else (None, None)
+        if tail is None or between.edge in diagram.loops:
+            return 1
+        # walking a side "L" runs tail -> head; the corner is where the walk of `over` ends/starts
+        walk_ends_at_head = cycle[i].hand == "L"
+        dart = head if walk_ends_at_head == corner_end else tail
+        s_tail, s_head = diagram.edge_ends[between.edge]
+        active = dart.position % 2 == 1 or (s_tail.position % 2 == 1 and s_head.position % 2 == 1)
+        return 0 if active else 1
+    return 3
+
+
+def child_key(diagram: Diagram, record: MoveRecord) -> tuple[int, int]:
+    """Search order of a child: crossings after the move, then R2 additions that make a
+    triangle where an R3 can follow (and whatever follows them) before the others
+    (:func:`_corner_gap`). The searches break ties by depth.
+
+    >>> from movies.diagram.constructors import unlink
+    >>> child_key(unlink(2), MoveRecord("R2+", over=1, under=2, face=2))
+    (2, 3)
+    """
+    n = diagram.crossing_count() + CHANGE[record.kind]
+    return (n, _corner_gap(diagram, record) if record.kind == "R2+" else 0)
+
+
 def _greedy(diagram: Diagram, meter: Meter, reversible: bool) -> list[Step]:
     path: list[Step] = []
     while True:
@@ -162,7 +210,7 @@ def _improve(diagram: Diagram, meter: Meter, lift: int, reversible: bool) -> lis
     cap = floor + 2 * lift
     nodes: list[tuple[Diagram, int, Step | None]] = [(diagram, -1, None)]
     seen = {canonical_form(diagram)}
-    heap: list[tuple[int, int, int, int, MoveRecord]] = []
+    heap: list[tuple[int, int, int, int, int, MoveRecord]] = []
     counter = 0
 
     def push(index: int, depth: int) -> None:
@@ -172,11 +220,14 @@ def _improve(diagram: Diagram, meter: Meter, lift: int, reversible: bool) -> lis
         kinds = _LATERAL + (("R2+",) if n + 2 <= cap else ())
         for record in candidates(d, kinds):
             counter += 1
-            heapq.heappush(heap, (n + CHANGE[record.kind], depth + 1, counter, index, record))
+            # deepest first: a path that R2 addition opened is followed to its end before
+            # the next addition is tried (measured: far fewer moves than breadth-first)
+            heapq.heappush(heap, (*child_key(d, record), -(depth + 1), counter, index, record))
 
     push(0, 0)
     while heap:
-        n_after, depth, _, parent, record = heapq.heappop(heap)
+        n_after, _, minus_depth, _, parent, record = heapq.heappop(heap)
+        depth = -minus_depth
         if not meter.spend():
             return None
         before = nodes[parent][0]
@@ -208,8 +259,8 @@ def descend(diagram: Diagram, goal, meter: Meter, lift: int = 1, reversible: boo
 
     Parameters: the start; ``goal``, a function of a diagram; a :class:`Meter`; ``lift``, how
     many R2 additions above a stuck crossing count a search may make; ``reversible``: take
-    only moves that one move function call can undo (:func:`undoable`). Returns the steps and why it stopped (``"goal"``,
-    ``"exhausted"``, ``"moves"``, ``"seconds"``).
+    only moves that one move function call can undo (:func:`undoable`). Returns the steps
+    and why it stopped (``"goal"``, ``"exhausted"``, ``"moves"``, ``"seconds"``).
 
     >>> from movies.diagram.constructors import unknot
     >>> steps, why = descend(unknot(), lambda d: True, Meter(Budget()))

@@ -1,0 +1,107 @@
+"""Every bundled example: its verdict and its surface."""
+
+import json
+import subprocess
+import sys
+from pathlib import Path
+
+import pytest
+
+from movies.checker.replay import check_movie
+from movies.checker.report import as_json
+from movies.cli.main import main
+from movies.language.movie import parse_movie
+
+EXAMPLES = Path(__file__).resolve().parents[1] / "examples" / "movies"
+
+# verdict, Euler characteristic, (genus or None, crosscaps or None, boundary on start, on end) per component
+EXPECTED = {
+    "square-knot-ribbon": ("verified", 1, [(0, None, 1, 0)]),
+    "8_20-ribbon": ("verified", 1, [(0, None, 1, 0)]),
+    "5_2-sum-ribbon": ("verified", 1, [(0, None, 1, 0)]),
+    "5_2-to-5_1-genus-one": ("verified", -2, [(1, None, 1, 1)]),
+    "trefoil-concordance": ("verified", 0, [(0, None, 1, 1)]),
+    "trefoil-moebius-band": ("verified", 0, [(None, 1, 1, 0)]),
+    "mistake-illegal-move": ("invalid", None, None),
+    "mistake-false-checkpoint": ("contradicted", -1, [(0, None, 2, 1)]),
+    "mistake-false-isotopy": ("contradicted", -2, [(1, None, 1, 1)]),
+}
+
+
+def test_every_example_is_listed():
+    assert sorted(p.stem for p in EXAMPLES.glob("*.movie")) == sorted(EXPECTED)
+
+
+@pytest.mark.parametrize("name", sorted(EXPECTED))
+def test_example(name):
+    verdict, euler, components = EXPECTED[name]
+    result = check_movie(parse_movie((EXAMPLES / f"{name}.movie").read_text()))
+    data = as_json(result)
+    assert data["verdict"] == verdict
+    assert data["verified"] is (verdict == "verified")
+    if euler is None:
+        assert data["surface"] is None
+        return
+    s = data["surface"]
+    assert s["euler_characteristic"] == euler
+    assert [(c["genus"], c["crosscaps"], c["boundary_start"], c["boundary_end"]) for c in s["components"]] == components
+
+
+def test_ribbon_disks_end_empty_and_have_no_births():
+    for name in ("square-knot-ribbon", "8_20-ribbon", "5_2-sum-ribbon"):
+        s = as_json(check_movie(parse_movie((EXAMPLES / f"{name}.movie").read_text())))["surface"]
+        assert s["ribbon"] and s["lives_in"] == "B^4" and s["oriented_by_start"]
+        assert s["every_component_meets_start"] and not s["every_component_meets_end"]
+
+
+def test_the_moebius_band_is_broken_by_its_band():
+    s = as_json(check_movie(parse_movie((EXAMPLES / "trefoil-moebius-band.movie").read_text())))["surface"]
+    assert s["orientable"] is False and s["orientation_broken_at_step"] == 1
+
+
+def test_the_mistakes_say_where_and_why():
+    illegal = as_json(check_movie(parse_movie((EXAMPLES / "mistake-illegal-move.movie").read_text())))
+    (finding,) = illegal["findings"]
+    assert finding["kind"] == "invalid" and finding["step"] == 2 and finding["line"] == 6
+    assert "not a bigon" in finding["message"] and "faces 1, 2, 3, 4, 5, 6" in finding["evidence"]
+    false = as_json(check_movie(parse_movie((EXAMPLES / "mistake-false-isotopy.movie").read_text())))
+    (finding,) = false["findings"]
+    assert finding["kind"] == "false" and "signature" in finding["evidence"]
+    checkpoint = as_json(check_movie(parse_movie((EXAMPLES / "mistake-false-checkpoint.movie").read_text())))
+    assert [f["line"] for f in checkpoint["findings"]] == [6, 7]
+
+
+def test_found_moves_replay(tmp_path):
+    # the moves reported for a simplify step, pasted back as ordinary steps, check the same
+    text = (EXAMPLES / "square-knot-ribbon.movie").read_text()
+    result = check_movie(parse_movie(text))
+    (found,) = [s.found for s in result.steps if s.kind == "simplify"]
+    replayed = text.replace("simplify to crossingless", "\n".join(found))
+    again = check_movie(parse_movie(replayed))
+    assert again.verified and again.frames[-1] == result.frames[-1]
+
+
+def test_check_command_json_and_exit_codes(capsys):
+    assert main(["check", str(EXAMPLES / "square-knot-ribbon.movie"), "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert {"verified", "verdict", "steps", "start", "end", "surface"} <= set(data)
+    assert data["start"] == {"components": 1, "crossings": 6} and data["end"] == {"components": 0, "crossings": 0}
+    step = data["steps"][0]
+    assert {"line", "move", "crossings", "components", "certified"} <= set(step)
+    assert {"euler_characteristic", "orientable", "ribbon", "every_component_meets_start",
+            "every_component_meets_end", "components"} <= set(data["surface"])
+    assert main(["check", str(EXAMPLES / "mistake-illegal-move.movie")]) == 1
+
+
+def test_frames_command_prints_names(capsys):
+    assert main(["frames", str(EXAMPLES / "square-knot-ribbon.movie"), "--at", "1"]) == 0
+    out = capsys.readouterr().out
+    assert out.startswith("the frame after step 1 (band 4 10 in face 1)")
+    assert "components (edges along the orientation):" in out
+    assert main(["frames", str(EXAMPLES / "square-knot-ribbon.movie"), "--at", "9"]) == 2
+
+
+def test_readme_run_command_works():
+    result = subprocess.run([sys.executable, "-m", "movies", "check", str(EXAMPLES / "square-knot-ribbon.movie")],
+                            capture_output=True, text=True)
+    assert result.returncode == 0 and "VERDICT  verified" in result.stdout
