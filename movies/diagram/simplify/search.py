@@ -7,8 +7,9 @@ The strategy, repeated until the target is met or nothing more is found:
    R2 additions (at most ``lift`` of them above the stuck crossing count, each followed by R3s
    and removals), with a visited set of canonical forms. Children are ordered by crossing
    count; among R2 additions, those that make a triangle beside their bigon where an R3 can
-   follow come first (:func:`child_key`); then the deepest child first, so that what an R2
-   addition opened is followed to its end before the next addition is tried. It stops at
+   follow come first (:func:`child_key`); then the deepest child first, so that a chain of
+   R3 moves, or what an R2 addition opened, is followed to its end before the next one is
+   tried. It stops at
    the first diagram with fewer crossings than the stuck one. A child is built only when the
    search reaches it, so the many R2 additions of a diagram cost nothing until the R3 moves
    and removals at a lower crossing count have all been tried.
@@ -210,7 +211,7 @@ def _improve(diagram: Diagram, meter: Meter, lift: int, reversible: bool) -> lis
     cap = floor + 2 * lift
     nodes: list[tuple[Diagram, int, Step | None]] = [(diagram, -1, None)]
     seen = {canonical_form(diagram)}
-    heap: list[tuple[int, int, int, int, int, MoveRecord]] = []
+    heap: list[tuple[int, int, int, int, int, int, MoveRecord]] = []
     counter = 0
 
     def push(index: int, depth: int) -> None:
@@ -220,14 +221,14 @@ def _improve(diagram: Diagram, meter: Meter, lift: int, reversible: bool) -> lis
         kinds = _LATERAL + (("R2+",) if n + 2 <= cap else ())
         for record in candidates(d, kinds):
             counter += 1
-            # deepest first: a path that R2 addition opened is followed to its end before
-            # the next addition is tried (measured: far fewer moves than breadth-first)
-            heapq.heappush(heap, (*child_key(d, record), -(depth + 1), counter, index, record))
+            # deepest first: a chain of R3 moves, or what an R2 addition opened, is followed
+            # to its end before the next is tried (measured on scrambled 8-10 crossing knots:
+            # a third of the moves breadth-first needs, for longer paths)
+            heapq.heappush(heap, (*child_key(d, record), -(depth + 1), depth + 1, counter, index, record))
 
     push(0, 0)
     while heap:
-        n_after, _, minus_depth, _, parent, record = heapq.heappop(heap)
-        depth = -minus_depth
+        n_after, _, _, depth, _, parent, record = heapq.heappop(heap)
         if not meter.spend():
             return None
         before = nodes[parent][0]
