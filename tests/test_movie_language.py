@@ -140,3 +140,26 @@ def test_fuzzed_file_through_the_command_line_exits_2(tmp_path):
     result = subprocess.run([sys.executable, "-m", "movies", "check", str(path)], capture_output=True, text=True)
     assert result.returncode == 2
     assert "Traceback" not in result.stderr and "line 2" in result.stderr
+
+
+def test_the_reference_page_statements_read():
+    from pathlib import Path
+    import re
+
+    page = (Path(__file__).resolve().parents[1] / "grammar" / "README.md").read_text(encoding="utf-8")
+    section = page.split("## Writing a movie", 1)[1].split("### Verdicts", 1)[0]
+    rows = [line for line in section.splitlines() if line.startswith("| `")]
+    snippets = [re.findall(r"`([^`]+)`", row.split("|")[1])[0] for row in rows]
+    assert len(snippets) >= 18
+    for snippet in snippets:
+        if snippet.startswith("title"):
+            text = snippet + "\nstart unknot"
+        elif snippet.startswith("start"):
+            text = snippet
+        else:
+            text = "start unknot\n" + snippet
+        parse_movie(text)
+    (block,) = re.findall(r"```\n(.*?)```", section, re.S)
+    from movies.checker.replay import check_movie
+
+    assert check_movie(parse_movie(block)).verified

@@ -183,7 +183,8 @@ def r1_remove(diagram: Diagram, crossing: int, kink: int | None = None) -> Diagr
     """Remove the kink at ``crossing``; ``kink`` names its loop edge when there are two.
 
     The edge arriving at the kink keeps its name and runs on to where the edge leaving the kink
-    ended; the loop and the leaving edge disappear.  If the whole component was that kink, it
+    ended; the loop and the leaving edge disappear. Split pieces lying inside the loop end up in
+    the face around it (they are split, so moving them there is an isotopy too).  If the whole component was that kink, it
     becomes a crossingless circle named by its smallest remaining edge.
 
     >>> from movies.diagram.constructors import unknot
