@@ -73,7 +73,7 @@ def _budget(seconds: float):
     from movies.diagram.simplify import Budget
 
     # moves are the real limit (so that a run can be repeated); seconds are the safety net
-    return Budget(moves=max(200, int(600 * seconds)), seconds=float(seconds))
+    return Budget(moves=max(200, int(300 * seconds)), seconds=float(seconds))
 
 
 def simplify_frame(frame: Diagram, target: dict, budget: float) -> Simplified:

@@ -20,19 +20,21 @@ and dropping one of them per piece leaves a basis of ``H_1(Σ_R)``.  The surface
 the ``Σ_R`` glued along disks in a tree-like way (a Murasugi sum), so these bases together form a
 basis of ``H_1`` of the whole surface.
 
-The entries, all computed from the planar structure (no coordinates):
+The entries, all computed from the planar structure (no coordinates).  ``x · y`` is the
+intersection number on the surface, ``+1`` where the tangents of ``x`` and ``y`` in this order are
+positively oriented, and ``lk(x, y⁺) - lk(x, y⁻) = -(x · y)``.
 
-* two loops of one region: a sum over the crossings of the region.  At a crossing of sign ``s``
+* two loops of one region: ``Σ_R`` is isotopic to a flat (checkerboard) surface, and the entry
+  is a sum over the crossings of the region.  At a crossing of sign ``s``
   one face loop passes the band on the side of the two incoming edges ("in") and one on the
   side of the outgoing edges ("out"); the crossing adds ``-s/2`` to ``V[in][in]`` and to
   ``V[out][out]``, ``(s - 1)/2`` to ``V[in][out]`` and ``(s + 1)/2`` to ``V[out][in]``.  The
-  symmetric part is the Goeritz form of the region's (checkerboard) surface, as Gordon and
-  Litherland show; the antisymmetric part ``V - Vᵀ = -(intersection form)`` comes from the
-  half twist, which makes the in- and out-loop cross once.
+  symmetric part is the Goeritz form of that surface (Gordon–Litherland); the antisymmetric
+  part is ``-(in · out) = -1``: the half twist makes the in- and out-loop cross once.
 * a loop ``λ`` of the region on the left of a circle ``C`` and a loop ``μ`` of the region on
-  its right: the surface on the left of ``C`` lies on the side its normal points to, so
-  ``lk(λ, μ⁻) = 0`` and ``V[λ][μ] = -(λ · μ)``, counted where their chords cross in the disk of
-  ``C``; ``V[μ][λ] = 0``.
+  its right: ``Σ`` of the left region lies on the side of the disk of ``C`` that the normal
+  points to, ``Σ`` of the right region on the other side, so ``lk(λ, μ⁻) = 0`` and
+  ``V[λ][μ] = -(λ · μ)``, counted where their chords cross in the disk of ``C``; ``V[μ][λ] = 0``.
 * loops of regions that share no circle: 0 (a sphere separates them).
 
 >>> from movies.diagram.pd import from_pd
@@ -43,7 +45,6 @@ The entries, all computed from the planar structure (no coordinates):
 from __future__ import annotations
 
 from dataclasses import dataclass
-from fractions import Fraction
 
 from movies.diagram.model import Diagram, Side, head_positions
 from movies.errors import DiagramError
