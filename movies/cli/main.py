@@ -113,12 +113,7 @@ def diagram_from_arguments(args: argparse.Namespace):
     from movies.language.spec import parse_diagram
 
     if args.file is not None:
-        try:
-            with open(args.file, encoding="utf-8") as handle:
-                text = handle.read()
-        except OSError as err:
-            raise InputError(f"cannot read {args.file}: {err.strerror}") from None
-        return args.file, parse_diagram(text)
+        return args.file, parse_diagram(read_text(args.file))
     return args.spec, parse_diagram(args.spec)
 
 
@@ -135,15 +130,21 @@ def _run_invariants(args: argparse.Namespace) -> int:
     return EXIT_OK
 
 
+def read_text(path: str) -> str:
+    """A file's text, or an InputError that says why it cannot be read."""
+    try:
+        with open(path, encoding="utf-8") as handle:
+            return handle.read()
+    except OSError as err:
+        raise InputError(f"cannot read {path}: {err.strerror}") from None
+    except UnicodeDecodeError:
+        raise InputError(f"cannot read {path}: it is not UTF-8 text") from None
+
+
 def _read_movie(path: str):
     from movies.language.movie import parse_movie
 
-    try:
-        with open(path, encoding="utf-8") as handle:
-            text = handle.read()
-    except OSError as err:
-        raise InputError(f"cannot read {path}: {err.strerror}") from None
-    return parse_movie(text)
+    return parse_movie(read_text(path))
 
 
 def _checked(args: argparse.Namespace):

@@ -17,6 +17,8 @@ from __future__ import annotations
 
 from fractions import Fraction
 
+from movies.algebra.laurent import LaurentPolynomial
+
 
 def polynomial_text(terms: list[list], variable: str = "t") -> str:
     """A polynomial given as [[exponent, coefficient], ...] in the trade's readable form.
@@ -28,28 +30,8 @@ def polynomial_text(terms: list[list], variable: str = "t") -> str:
     >>> polynomial_text([])
     '0'
     """
-    pieces = []
-    for exponent, coefficient in terms:
-        exponent = Fraction(exponent).limit_denominator(2)
-        if exponent == 0:
-            monomial = ""
-        elif exponent == 1:
-            monomial = variable
-        elif exponent.denominator == 1 and exponent > 0:
-            monomial = f"{variable}^{exponent}"
-        else:
-            monomial = f"{variable}^({exponent})"
-        size = abs(coefficient)
-        body = f"{size}{monomial}" if size != 1 or not monomial else monomial
-        sign = "-" if coefficient < 0 else "+"
-        pieces.append((sign, body))
-    if not pieces:
-        return "0"
-    first_sign, first = pieces[0]
-    text = ("-" if first_sign == "-" else "") + first
-    for sign, body in pieces[1:]:
-        text += f" {sign} {body}"
-    return text
+    exact = {Fraction(exponent).limit_denominator(2): coefficient for exponent, coefficient in terms}
+    return str(LaurentPolynomial(exact, variable=variable))
 
 
 def _plural(count: int, word: str) -> str:

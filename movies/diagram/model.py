@@ -78,6 +78,27 @@ class FaceName(int):
         return f"Face {int(self)}"
 
 
+def orbits(successor: Mapping) -> list[list]:
+    """The cycles of a permutation given as a mapping, each from its smallest element.
+
+    >>> orbits({1: 3, 3: 1, 2: 2})
+    [[1, 3], [2]]
+    """
+    seen: set = set()
+    result = []
+    for start in sorted(successor):
+        if start in seen:
+            continue
+        cycle = []
+        item = start
+        while item not in seen:
+            seen.add(item)
+            cycle.append(item)
+            item = successor[item]
+        result.append(cycle)
+    return result
+
+
 def head_positions(sign: int) -> tuple[int, int]:
     """The two positions of a crossing where an edge arrives, for a crossing of this sign.
 
@@ -248,20 +269,15 @@ class Diagram:
 
     @cached_property
     def _pieces(self) -> tuple[frozenset[int], ...]:
-        parent = {edge: edge for edge in self.edges()}
-
-        def find(x: int) -> int:
-            while parent[x] != x:
-                parent[x] = parent[parent[x]]
-                x = parent[x]
-            return x
-
+        uf = _UnionFind()
+        for edge in self.edges():
+            uf.find(edge)
         for labels in self.crossings.values():
             for label in labels[1:]:
-                parent[find(label)] = find(labels[0])
+                uf.union(label, labels[0])
         groups: dict[int, set[int]] = {}
-        for edge in parent:
-            groups.setdefault(find(edge), set()).add(edge)
+        for edge in self.edges():
+            groups.setdefault(uf.find(edge), set()).add(edge)
         return tuple(sorted((frozenset(g) for g in groups.values()), key=min))
 
     def pieces(self) -> tuple[frozenset[int], ...]:
@@ -361,17 +377,7 @@ class Diagram:
             successor[a] = over_out
             successor[over_in] = c
         circles = [(edge,) for edge in sorted(self.loops)]
-        seen: set[int] = set(self.loops)
-        for start in sorted(successor):
-            if start in seen:
-                continue
-            cycle = []
-            edge = start
-            while edge not in seen:
-                seen.add(edge)
-                cycle.append(edge)
-                edge = successor[edge]
-            circles.append(tuple(cycle))
+        circles += [tuple(cycle) for cycle in orbits(successor)]
         return sorted(circles)
 
     def seifert_circle_count(self) -> int:
@@ -483,21 +489,16 @@ def trace_cycles(
     for tail, head in ends.values():
         other_end[tail] = head
         other_end[head] = tail
-    seen: set[Dart] = set()
+    # arriving at a dart, the walk leaves through the previous position and arrives at the far end
+    walk = {dart: other_end[Dart(dart.crossing, (dart.position - 1) % 4)] for dart in other_end}
     cycles: list[tuple[Side, ...]] = []
-    for start in sorted(other_end):
-        if start in seen:
-            continue
-        cycle = []
-        dart = start
-        while dart not in seen:
-            seen.add(dart)
+    for orbit in orbits(walk):
+        sides = []
+        for dart in orbit:
             leave = Dart(dart.crossing, (dart.position - 1) % 4)
             edge = dart_edge[leave]
-            arrive = other_end[leave]
-            cycle.append(Side(edge, "L" if ends[edge][0] == leave else "R"))
-            dart = arrive
-        cycles.append(canonical_cycle(cycle))
+            sides.append(Side(edge, "L" if ends[edge][0] == leave else "R"))
+        cycles.append(canonical_cycle(sides))
     for loop in loops:
         cycles.append((Side(loop, "L"),))
         cycles.append((Side(loop, "R"),))
@@ -526,18 +527,8 @@ def trace_components(
     [(1, 2), (3, 4)]
     """
     probe = Diagram(crossings, signs, frozenset(loops))
-    seen: set[int] = set()
     result = [(loop,) for loop in sorted(loops)]
-    for start in sorted(probe.edge_ends):
-        if start in seen:
-            continue
-        cycle = []
-        edge = start
-        while edge not in seen:
-            seen.add(edge)
-            cycle.append(edge)
-            edge = probe.next_edge(edge)
-        result.append(tuple(cycle))
+    result += [tuple(cycle) for cycle in orbits({edge: probe.next_edge(edge) for edge in probe.edge_ends})]
     return sorted(result)
 
 
@@ -662,21 +653,14 @@ def check_regions(diagram: Diagram) -> None:
         raise DiagramError("the faces do not match the diagram's boundary cycles")
     pieces = diagram.pieces()
     piece_of = {edge: i for i, piece in enumerate(pieces) for edge in piece}
-    parent = list(range(len(pieces)))
-
-    def find(i: int) -> int:
-        while parent[i] != i:
-            parent[i] = parent[parent[i]]
-            i = parent[i]
-        return i
-
+    uf = _UnionFind()
     for name, region in diagram.faces.items():
         touching = [piece_of[cycle[0].edge] for cycle in region]
         if len(set(touching)) != len(touching):
             raise DiagramError(f"face {name} meets one split piece twice")
         for other in touching[1:]:
-            parent[find(other)] = find(touching[0])
-    if len(cycles) != len(pieces) + len(diagram.faces) - 1 or len({find(i) for i in range(len(pieces))}) > 1:
+            uf.union(other, touching[0])
+    if len(cycles) != len(pieces) + len(diagram.faces) - 1 or len({uf.find(i) for i in range(len(pieces))}) > 1:
         raise DiagramError("the split pieces and the faces between them do not form a tree")
 
 
