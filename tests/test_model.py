@@ -15,7 +15,6 @@ from hypothesis import strategies as st
 from movies.diagram.model import (
     Dart,
     Diagram,
-    FaceName,
     Side,
     assemble,
     canonical_cycle,
@@ -146,7 +145,7 @@ def test_faces_beside_matches_the_face_cycles_everywhere():
         d = from_pd(code, loops=1)
         for edge in d.edges():
             left, right = d.faces_beside(edge)
-            assert isinstance(left, FaceName) and repr(left) == f"Face {int(left)}"
+            assert type(left) is int and type(right) is int
             assert any(Side(edge, "L") in cycle for cycle in d.faces[left])
             assert any(Side(edge, "R") in cycle for cycle in d.faces[right])
 

@@ -27,7 +27,7 @@ the caller chooses them.
 >>> trefoil.writhe(), len(trefoil.faces), trefoil.seifert_circle_count()
 (3, 5, 2)
 >>> trefoil.faces_beside(1)
-(Face 1, Face 2)
+(1, 2)
 """
 
 from __future__ import annotations
@@ -69,13 +69,6 @@ class Dart(NamedTuple):
 
     crossing: int
     position: int
-
-
-class FaceName(int):
-    """A face name that prints as ``Face n`` (only for readable reprs)."""
-
-    def __repr__(self) -> str:
-        return f"Face {int(self)}"
 
 
 def orbits(successor: Mapping) -> list[list]:
@@ -224,11 +217,11 @@ class Diagram:
 
         >>> from movies.diagram.pd import from_pd
         >>> from_pd([[4, 1, 3, 2], [2, 3, 1, 4]]).faces_beside(3)
-        (Face 4, Face 2)
+        (4, 2)
         """
         if edge not in self.loops and edge not in self.edge_ends:
             raise DiagramError(f"edge {edge} is not in the diagram (edges: {self.edges()})")
-        return (FaceName(self.side_face[Side(edge, "L")]), FaceName(self.side_face[Side(edge, "R")]))
+        return (self.side_face[Side(edge, "L")], self.side_face[Side(edge, "R")])
 
     def face(self, name: int) -> tuple[tuple[Side, ...], ...]:
         """The boundary cycles of a face, with a clear error for an unknown name."""
