@@ -38,3 +38,16 @@ def test_wheel_holds_the_grammar_and_runs_from_elsewhere(tmp_path):
     )
     assert result.returncode == 0, result.stderr
     assert result.stdout.split() == ["5", "2", "True"]
+
+
+def test_every_package_is_listed_for_the_wheel():
+    import os
+    import re
+
+    listed = set(re.findall(r'"(movies[a-z_.]*)"', (ROOT / "pyproject.toml").read_text()))
+    found = {
+        os.path.relpath(folder, ROOT).replace(os.sep, ".")
+        for folder, _, files in os.walk(ROOT / "movies")
+        if "__init__.py" in files and "__pycache__" not in folder
+    }
+    assert found | {"movies.grammar"} <= listed

@@ -26,13 +26,13 @@ finished pieces, so KeyboardInterrupt simply propagates and nothing half-built i
 
 from __future__ import annotations
 
-from typing import Callable, Iterable, Sequence
+from typing import Callable
 
 from movies.diagram.model import Diagram
 from movies.homology.errors import FieldError, HomologyError, NotAKnotError
 from movies.homology.graded import bar_natan_module, khovanov_integral, khovanov_ranks
 from movies.homology.rings import Ring, parse_field
-from movies.homology.scanning import Complex, FinalComplex, finish, scan_complex
+from movies.homology.scanning import FinalComplex, finish, scan_complex
 
 __all__ = [
     "khovanov_homology",
@@ -57,10 +57,6 @@ def _signs(d: Diagram) -> tuple[int, int]:
     n = len(d.crossings)
     n_plus = sum(1 for s in d.signs.values() if s > 0)
     return n_plus, n - n_plus
-
-
-def _run(pd: list, order: list, ring: Ring, progress: Progress | None) -> Complex:
-    return scan_complex(pd, ring, order, progress)
 
 
 def _order(pd: list) -> list:
@@ -95,7 +91,7 @@ def bar_natan_complex(diagram, field: str = "Z", progress: Progress | None = Non
         ring = Ring("Z", 0)
     pd = [tuple(c) for c in d.pd_code()]
     n_plus, n_minus = _signs(d)
-    cx = _run(pd, _order(pd), ring, progress)
+    cx = scan_complex(pd, ring, _order(pd), progress)
     return _with_loops(finish(cx, n_plus, n_minus), d.loop_count())
 
 
@@ -128,7 +124,7 @@ def _reduced_complex(d: Diagram, ring: Ring, basepoint, progress) -> FinalComple
             c[c.index(basepoint)] = fresh
             break
     cut = [tuple(c) for c in cut]
-    cx = _run(cut, order, ring, progress)
+    cx = scan_complex(cut, ring, order, progress)
     n_plus, n_minus = _signs(d)
     index = {}
     gens = []
@@ -150,7 +146,8 @@ def khovanov_homology(diagram, field: str = "Q", reduced: bool = False, basepoin
 
     Parameters: a :class:`~movies.diagram.model.Diagram` (or a PD code); ``field``: ``"Q"``,
     ``"Z"`` or ``"F<p>"``; ``reduced``: reduced homology through a basepoint on the edge
-    ``basepoint`` (only its component matters; default: any); ``progress(done, total)``,
+    ``basepoint`` (only its component matters; for a link give it, the default is an edge at
+    the last crossing the scan adds); ``progress(done, total)``,
     called after each crossing.
     Returns {(i, j): dimension} over a field; over Z
     {"free": {(i, j): rank}, "torsion": {(i, j): {order: count}}}.

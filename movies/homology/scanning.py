@@ -61,6 +61,14 @@ class Complex:
 
     ``h``, ``m``, ``q`` map an object id to its homological degree, matching and q-shift;
     ``out[i][j]`` and ``inn[j][i]`` are the same dict, the morphism ``i -> j``.
+
+    >>> cx = Complex(RING_Z)
+    >>> a, b, c = cx.add_object(0, (1, 0), 0), cx.add_object(1, (1, 0), 0), cx.add_object(1, (1, 0), 2)
+    >>> cx.add_to(a, b, {0: 1}); cx.add_to(a, c, {1: 1})  # the identity, and a dot
+    >>> cx.unit_of(a, b), cx.unit_of(a, c)
+    (1, None)
+    >>> cx.simplify(); sorted(cx.m)
+    [2]
     """
 
     def __init__(self, ring: Ring) -> None:
@@ -420,6 +428,11 @@ def add_crossing(cx: Complex, boundary: list, crossing: tuple) -> tuple[Complex,
 
     Parameters: the current complex, its boundary labels, the PD tuple of the crossing.
     Returns (new complex, new boundary labels).
+
+    >>> start = Complex(RING_Z); _ = start.add_object(0, (), 0)
+    >>> cx, boundary = add_crossing(start, [], (1, 5, 2, 4))
+    >>> boundary, cx.size()
+    ([1, 5, 2, 4], 2)
     """
     step = _Step(boundary, crossing)
     new = Complex(cx.ring)
@@ -501,7 +514,15 @@ def scan(pd, ring: Ring, order=None, progress=None, n_plus=None, n_minus=None) -
 
 
 def finish(cx: Complex, n_plus: int, n_minus: int) -> FinalComplex:
-    """Read a complex of tangles with no boundary as a :class:`FinalComplex`."""
+    """Read a complex of tangles with no boundary as a :class:`FinalComplex`.
+
+    Parameters: the complex and the numbers of positive and negative crossings, which give
+    the shifts ``[-n_-]{n_+ - 2 n_-}``. Returns generators sorted by bidegree and the entries.
+
+    >>> cx = Complex(RING_Z); _ = cx.add_object(0, (), 1)
+    >>> finish(cx, 1, 0)
+    FinalComplex(generators=[(0, 2)], entries={})
+    """
     index = {}
     gens = []
     for i in sorted(cx.m, key=lambda i: (cx.h[i], cx.q[i], i)):
