@@ -23,7 +23,7 @@ from movies.diagram.constructors import unlink
 from movies.diagram.model import Diagram
 from movies.errors import MoveError, MoviesError
 from movies.invariants.alexander import alexander_polynomial, determinant
-from movies.invariants.compare import first_difference
+from movies.checker.distinguish import first_difference
 from movies.invariants.jones import jones_polynomial
 from movies.invariants.signature import signature
 from movies.language.movie import MOVE_KINDS, Movie, Statement

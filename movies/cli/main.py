@@ -58,6 +58,11 @@ def build_parser() -> argparse.ArgumentParser:
     inv.add_argument("--strands", type=int, metavar="N", help="number of strands of the --braid word")
     inv.add_argument("--file", metavar="PATH", help="read SPEC from a file")
     inv.add_argument("--json", action="store_true", help="print one JSON object instead of the table")
+    inv.add_argument("--field", action="append", default=[], metavar="F",
+                     help="also compute homology and s over this field (F3, F5, ...); Q and F2 always")
+    inv.add_argument("--reduced", action="store_true", help="also reduced Khovanov homology")
+    inv.add_argument("--bar-natan", action="store_true", help="also Bar-Natan homology over F[H]")
+    inv.add_argument("--classical", action="store_true", help="only the classical invariants (no homology)")
     inv.set_defaults(run=_run_invariants)
 
     chk = commands.add_parser(
@@ -123,6 +128,12 @@ def _run_invariants(args: argparse.Namespace) -> int:
 
     label, diagram = diagram_from_arguments(args)
     facts = classical_invariants(diagram)
+    if not args.classical and not diagram.is_empty():
+        from movies.homology.summary import homology_summary
+
+        fields = ["Q", "F2"] + [f for f in args.field if f.upper() not in ("Q", "F2")]
+        with _progress("homology") as report:
+            facts.update(homology_summary(diagram, fields, args.reduced, args.bar_natan, progress=report))
     if args.json:
         print(json.dumps(facts))
     else:
@@ -176,6 +187,26 @@ def _run_frames(args: argparse.Namespace) -> int:
     print(heading)
     print(result.frames[at].summary())
     return EXIT_OK
+
+
+class _progress:
+    """A crossing counter on the terminal while a long computation runs (only on a terminal)."""
+
+    def __init__(self, what: str) -> None:
+        self.what = what
+        self.shown = False
+
+    def __enter__(self):
+        return self if sys.stderr.isatty() else None
+
+    def __call__(self, done: int, total: int) -> None:
+        if total >= 12:
+            print(f"\r  {self.what}: {done}/{total} crossings added", end="", file=sys.stderr, flush=True)
+            self.shown = True
+
+    def __exit__(self, *exc) -> None:
+        if self.shown:
+            print("\r" + " " * 50 + "\r", end="", file=sys.stderr, flush=True)
 
 
 def main(argv: Sequence[str] | None = None) -> int:

@@ -34,6 +34,44 @@ def polynomial_text(terms: list[list], variable: str = "t") -> str:
     return str(LaurentPolynomial(exact, variable=variable))
 
 
+def homology_polynomial(triples: list[list[int]], torsion: list[list[int]] = ()) -> str:
+    """Ranks [[i, j, rank], ...] (and torsion [[i, j, order, count]]) as a polynomial in t and q.
+
+    >>> homology_polynomial([[0, 1, 1], [0, 3, 1], [2, 5, 1], [3, 9, 1]], [[3, 7, 2, 1]])
+    'q + q^3 + t^2 q^5 + t^3 q^9 + Z/2 t^3 q^7'
+    """
+    def monomial(i: int, j: int) -> str:
+        parts = [("t" if i == 1 else f"t^{i}") if i else "", ("q" if j == 1 else f"q^{j}") if j else ""]
+        return " ".join(p for p in parts if p) or "1"
+
+    terms = [(f"{r} " if r > 1 else "") + monomial(i, j) for i, j, r in triples]
+    terms += [(f"{count} " if count > 1 else "") + f"Z/{order} {monomial(i, j)}" for i, j, order, count in torsion]
+    return " + ".join(terms) if terms else "0"
+
+
+def homology_rows(facts: dict) -> list[tuple[str, str]]:
+    """Rows of the invariants report for the homology in ``facts`` (if any was computed)."""
+    rows: list[tuple[str, str]] = []
+    for field, triples in facts.get("khovanov", {}).items():
+        rows.append((f"Khovanov ({field})", homology_polynomial(triples)))
+    if "khovanov_Z" in facts:
+        torsion = facts["khovanov_Z"]["torsion"]
+        rows.append(("Khovanov (Z)", "no torsion" if not torsion else "torsion " + homology_polynomial([], torsion)))
+    for field, triples in facts.get("reduced_khovanov", {}).items():
+        rows.append((f"reduced ({field})", homology_polynomial(triples)))
+    for field, module in facts.get("bar_natan", {}).items():
+        text = "free " + homology_polynomial(module["free"])
+        if module["torsion"]:
+            text += "; H-torsion " + ", ".join(f"H^{k} at t^{i} q^{j}" + (f" ({c})" if c > 1 else "")
+                                                for i, j, k, c in module["torsion"])
+        rows.append((f"Bar-Natan ({field})", text))
+    if "s" in facts:
+        s = facts["s"]
+        rows.append(("s", "(for knots; links come from the canonical class)" if s is None
+                     else ", ".join(f"{value} over {field}" for field, value in s.items())))
+    return rows
+
+
 def _plural(count: int, word: str) -> str:
     return f"{count} {word}" + ("" if count == 1 else "s")
 
@@ -53,6 +91,8 @@ def invariants_text(label: str, facts: dict) -> str:
         ("Alexander", polynomial_text(facts["alexander"])),
         ("determinant", str(facts["determinant"])),
     ]
+    for name, value in homology_rows(facts):
+        rows.append((name, value))
     matrix = facts["linking_matrix"]
     if len(matrix) <= 1:
         rows.append(("linking numbers", "(one component)" if matrix else "(no components)"))

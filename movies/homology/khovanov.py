@@ -208,7 +208,16 @@ def rasmussen_s(diagram, field: str = "Q", progress: Progress | None = None) -> 
     if ring.name == "Z":
         raise FieldError("s is defined over a field: use 'Q' or 'F<p>'")
     final = bar_natan_complex(d, "Z" if ring.name == "Q" else ring.name, progress)
-    free = bar_natan_module(final, ring.p, degrees={0})["free"]  # s needs degree 0 only
+    return s_from_complex(final, ring.p)
+
+
+def s_from_complex(final: FinalComplex, p: int) -> int:
+    """s of a knot from its final Bar-Natan complex, over Q (p = 0) or F_p.
+
+    The complex may be the one computed over Z: tensoring it with the field gives the
+    complex over that field.
+    """
+    free = bar_natan_module(final, p, degrees={0})["free"]  # s needs degree 0 only
     degrees = sorted(q for (h, q), r in free.items() for _ in range(r))
     if len(degrees) != 2 or any(h != 0 for h, _ in free) or degrees[1] - degrees[0] != 2:
         raise HomologyError(f"internal error: the free part of Bar-Natan homology of a knot is "

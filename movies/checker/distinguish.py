@@ -19,6 +19,7 @@ from itertools import permutations
 from typing import Any, Callable
 
 from movies.diagram.model import Diagram
+from movies.homology import khovanov_homology, rasmussen_s
 from movies.invariants.alexander import alexander_polynomial
 from movies.invariants.jones import jones_polynomial
 from movies.invariants.signature import signature
@@ -50,17 +51,30 @@ def _nonempty(f: Callable[[Diagram], Any]) -> Callable[[Diagram], Any]:
     return lambda d: None if d.is_empty() else f(d)
 
 
-#: (name, how to compute it) in the order they are tried
+def _khovanov(field: str) -> Callable[[Diagram], Any]:
+    return lambda d: None if d.is_empty() else khovanov_homology(d, field)
+
+
+def _s(field: str) -> Callable[[Diagram], Any]:
+    return lambda d: rasmussen_s(d, field) if d.component_count() == 1 else None
+
+
+#: (name, how to compute it) in the order they are tried, cheapest first
 INVARIANTS: list[tuple[str, Callable[[Diagram], Any]]] = [
     ("number of components", lambda d: d.component_count()),
     ("signature", _nonempty(signature)),
     ("Jones polynomial", _nonempty(jones_polynomial)),
     ("Alexander polynomial", _nonempty(alexander_polynomial)),
+    ("Khovanov homology over Q", _khovanov("Q")),
+    ("Khovanov homology over F2", _khovanov("F2")),
+    ("s over Q", _s("Q")),
+    ("s over F2", _s("F2")),
 ]
 
 
 def first_difference(first: Diagram, second: Diagram) -> Difference | None:
-    """The first invariant (components, linking numbers, signature, Jones, Alexander) that differs.
+    """The first invariant that differs: components, linking numbers, signature, Jones, Alexander,
+    Khovanov homology over Q and F2, s over Q and F2.
 
     Parameters
     ----------

@@ -1,0 +1,83 @@
+"""Everything the command line reports about homology, from one scan over Z.
+
+The final complex over Z[H] is computed once; tensored with Q or F_p it gives the complex
+over that field, so Khovanov homology over every field, its torsion over Z, Bar-Natan homology
+and s all come from the same scan.
+
+>>> from movies.diagram.pd import from_pd
+>>> facts = homology_summary(from_pd([[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]))
+>>> facts["s"], facts["khovanov_Z"]["torsion"]
+({'Q': 2, 'F2': 2}, [[3, 7, 2, 1]])
+"""
+
+from __future__ import annotations
+
+from typing import Callable, Sequence
+
+from movies.diagram.model import Diagram
+from movies.homology.graded import bar_natan_module, khovanov_integral, khovanov_ranks
+from movies.homology.khovanov import bar_natan_complex, khovanov_homology, s_from_complex
+from movies.homology.rings import parse_field
+
+
+def _triples(ranks: dict) -> list[list[int]]:
+    return [[i, j, r] for (i, j), r in sorted(ranks.items()) if r]
+
+
+def homology_summary(
+    diagram: Diagram,
+    fields: Sequence[str] = ("Q", "F2"),
+    reduced: bool = False,
+    bar_natan: bool = False,
+    progress: Callable[[int, int], None] | None = None,
+) -> dict:
+    """Khovanov homology over each field and Z, s of knots, and optionally reduced and Bar-Natan homology.
+
+    Parameters
+    ----------
+    diagram : Diagram
+    fields : sequence of str
+        Fields for Khovanov homology and s: "Q", "F2", "F3", ...
+    reduced : bool
+        Also reduced Khovanov homology over each field (basepoint on the smallest edge).
+    bar_natan : bool
+        Also Bar-Natan homology over F[H] for each field: free generators and H-torsion.
+    progress : callable, optional
+        Called with (crossings added, total).
+
+    Returns
+    -------
+    dict
+        ``khovanov`` {field: [[i, j, rank], ...]}, ``khovanov_Z`` {"free": [[i, j, rank]],
+        "torsion": [[i, j, order, count]]}, ``s`` {field: int} (None for links: s of links is
+        computed from the canonical class), and ``reduced_khovanov`` / ``bar_natan`` when asked.
+    """
+    rings = [parse_field(f) for f in fields]
+    final = bar_natan_complex(diagram, "Z", progress)
+    integral = khovanov_integral(final)
+    result: dict = {
+        "khovanov": {ring.name: _triples(khovanov_ranks(final, ring.p)) for ring in rings},
+        "khovanov_Z": {
+            "free": _triples(integral["free"]),
+            "torsion": [[i, j, order, count] for (i, j), orders in sorted(integral["torsion"].items())
+                        for order, count in sorted(orders.items())],
+        },
+        "s": ({ring.name: s_from_complex(final, ring.p) for ring in rings}
+              if diagram.component_count() == 1 else None),
+    }
+    if reduced:
+        basepoint = min(diagram.edges())
+        result["reduced_khovanov"] = {
+            ring.name: _triples(khovanov_homology(diagram, ring.name, reduced=True, basepoint=basepoint))
+            for ring in rings
+        }
+    if bar_natan:
+        result["bar_natan"] = {}
+        for ring in rings:
+            module = bar_natan_module(final, ring.p)
+            result["bar_natan"][ring.name] = {
+                "free": _triples(module["free"]),
+                "torsion": [[i, j, k, count] for (i, j), powers in sorted(module["torsion"].items())
+                            for k, count in sorted(powers.items())],
+            }
+    return result
