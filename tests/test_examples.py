@@ -65,8 +65,11 @@ def test_the_mistakes_say_where_and_why():
     assert finding["kind"] == "invalid" and finding["step"] == 2 and finding["line"] == 6
     assert "not a bigon" in finding["message"] and "faces 1, 2, 3, 4, 5, 6" in finding["evidence"]
     false = as_json(check_movie(parse_movie((EXAMPLES / "mistake-false-isotopy.movie").read_text())))
-    (finding,) = false["findings"]
-    assert finding["kind"] == "false" and "signature" in finding["evidence"]
+    claim, surface = false["findings"]
+    assert claim["kind"] == "false" and "signature" in claim["evidence"]
+    # the surface the false claim pretends to exist breaks an s-inequality, and the report says why
+    assert surface["kind"] == "false" and surface["message"].startswith("no such surface exists")
+    assert "line 7" in surface["evidence"]
     checkpoint = as_json(check_movie(parse_movie((EXAMPLES / "mistake-false-checkpoint.movie").read_text())))
     assert [f["line"] for f in checkpoint["findings"]] == [6, 7]
 

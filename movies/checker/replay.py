@@ -50,6 +50,8 @@ class Finding:
     column: int
     message: str
     evidence: str = ""
+    #: "isotopy step" for a claim the movie goes on from (the surface rests on it)
+    about: str = ""
 
 
 @dataclass(frozen=True)
@@ -79,6 +81,7 @@ class CheckResult:
     claims: list[tuple[str, int | None, bool, str]] = field(default_factory=list)  # fact, value, holds, detail
     surface: Surface | None = None
     transitions: list[Transition] = field(default_factory=list)
+    bounds: object = None  # a movies.bounds.verdicts.BoundsReport once judged
 
     @property
     def verdict(self) -> str:
@@ -175,7 +178,8 @@ def _band_note(result: moves.SaddleResult) -> str:
 
 
 class _Replay:
-    def __init__(self, movie: Movie, budget: float) -> None:
+    def __init__(self, movie: Movie, budget: float, with_bounds: bool = True) -> None:
+        self.with_bounds = with_bounds
         self.movie = movie
         self.result = CheckResult(movie)
         self.budget = budget
@@ -183,9 +187,11 @@ class _Replay:
         self.result.frames.append(self.frame)
         self.number = 0
 
-    def find(self, kind: str, statement: Statement, message: str, evidence: str = "", step: int | None = None) -> None:
+    def find(self, kind: str, statement: Statement, message: str, evidence: str = "", step: int | None = None,
+             about: str = "") -> None:
         self.result.findings.append(
-            Finding(kind, step if step is not None else (self.number or None), statement.line, statement.column, message, evidence)
+            Finding(kind, step if step is not None else (self.number or None), statement.line, statement.column,
+                    message, evidence, about)
         )
 
     def record(self, statement: Statement, certified: bool, note: str = "", found: tuple[str, ...] = ()) -> None:
@@ -210,7 +216,33 @@ class _Replay:
             for statement in self.movie.claims:
                 for fact, value in statement.args["facts"]:
                     self.claim(statement, fact, value)
+            if self.with_bounds:
+                self.judge_bounds()
         return result
+
+    def judge_bounds(self) -> None:
+        from movies.bounds.verdicts import InternalInconsistency, surface_bounds
+
+        report = surface_bounds(self.result)
+        self.result.bounds = report
+        violated = report.violated
+        if not violated:
+            return
+        claims = [f for f in self.result.findings if f.about == "isotopy step"]
+        if not claims:
+            raise InternalInconsistency(
+                "a movie whose every step was checked breaks the inequality "
+                f"'{violated[0].statement}' ({violated[0].lhs} < {violated[0].rhs}); this cannot happen, "
+                "so it is a bug of this program: please report it with the movie"
+            )
+        listed = "; ".join(f"line {f.line}: {f.message}" for f in claims)
+        last = self.movie.statements[-1]
+        self.result.findings.append(Finding(
+            "false", None, last.line, last.column,
+            f"no such surface exists: {violated[0].statement} fails ({violated[0].lhs} < {violated[0].rhs}), "
+            "so one of the isotopy claims the movie goes on from is false",
+            listed,
+        ))
 
     # -------------------------------------------------------------- steps
 
@@ -255,10 +287,11 @@ class _Replay:
         difference = first_difference(self.frame, given)
         if difference is not None:
             self.find("false", statement, f"step {self.number}: the frame is not isotopic to {statement.args['spec']}",
-                      f"they differ in {difference}")
+                      f"they differ in {difference}", about="isotopy step")
         else:
             self.find("unproved", statement, f"step {self.number}: isotopic to {statement.args['spec']} is unproved",
-                      "the search found no Reidemeister moves between them; every invariant agrees")
+                      "the search found no Reidemeister moves between them; every invariant agrees",
+                      about="isotopy step")
         if self.frame.component_count() != given.component_count():
             # the claim is false, and the surface cannot be followed through it
             return given, Transition("isotopic", links=(), ended=tuple(self.frame.components),
@@ -358,7 +391,7 @@ def _shape(s: Surface) -> str:
     return "; ".join(parts) if parts else "empty"
 
 
-def check_movie(movie: Movie, budget: float = search.DEFAULT_BUDGET) -> CheckResult:
+def check_movie(movie: Movie, budget: float = search.DEFAULT_BUDGET, bounds: bool = True) -> CheckResult:
     """Replay a movie and judge it.
 
     Parameters
@@ -368,10 +401,12 @@ def check_movie(movie: Movie, budget: float = search.DEFAULT_BUDGET) -> CheckRes
     budget : float
         Seconds each search (simplify steps, isotopy claims) may take, unless the movie sets
         its own with ``budget N seconds``.
+    bounds : bool
+        Also judge the surface by the s-inequalities (:mod:`movies.bounds.verdicts`).
 
     Returns
     -------
     CheckResult
         Its ``verdict`` is ``verified``, ``conditional``, ``contradicted`` or ``invalid``.
     """
-    return _Replay(movie, budget).run()
+    return _Replay(movie, budget, bounds).run()

@@ -53,6 +53,16 @@ def as_json(result: CheckResult) -> dict:
         ],
         "surface": None,
     }
+    report = result.bounds
+    if report is not None:
+        data["s"] = report.s
+        data["bounds"] = [b.as_json() for b in report.bounds]
+        data["four_genus_bounds"] = {
+            end: [{"invariant": g.invariant, "value": g.value, "bound": g.bound, "source": g.source} for g in bounds]
+            for end, bounds in report.genus_bounds.items()
+        }
+        data["least_genus"] = list(report.least_genus)
+        data["bound_notes"] = list(report.notes)
     s = result.surface
     if s is not None:
         data["surface"] = {

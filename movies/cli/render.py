@@ -154,6 +154,24 @@ def check_text(data: dict, source: str) -> str:
             lines.append(f"         ribbon (no births): {'yes' if s['ribbon'] else 'no'}")
         for claim in s["claims"]:
             lines.append(f"  claim  surface {claim['claim']}: {'holds' if claim['holds'] else 'FALSE'} ({claim['detail']})")
+    if "s" in data:
+        lines.append("")
+        for end in ("start", "end"):
+            values = data["s"].get(end)
+            shown = ("not computed (a link)" if values is None
+                     else ", ".join(f"{v} over {f}" for f, v in values.items()))
+            lines.append(f"s        {end}: {shown}")
+        for bound in data["bounds"]:
+            verdict = "holds" if bound["holds"] else "FAILS"
+            tight = ", an equality" if bound["tight"] else ""
+            lines.append(f"  bound  {bound['statement']}: {bound['lhs']} >= {bound['rhs']} {verdict}{tight}")
+        for end, bounds in data["four_genus_bounds"].items():
+            shown = ", ".join(f"{b['invariant']} gives {b['bound']}" for b in bounds)
+            lines.append(f"  g4 of the {end} knot is at least: {shown}")
+        for statement in data["least_genus"]:
+            lines.append(f"  least genus: {statement}")
+        for note in data["bound_notes"]:
+            lines.append(f"  note   {note}")
     for check in data["checkpoints"]:
         lines.append(f"  line {check['line']}  {check['claim']}: {check['outcome']} ({check['detail']})")
     lines.append("")

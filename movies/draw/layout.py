@@ -32,6 +32,9 @@ from movies.diagram.model import Diagram, Side
 #: subdivision points on each edge (at least 2, so that the subdivided graph is simple)
 SUBDIVISION = 3
 
+#: rounds of reweighting after the plain barycentric solve (see :func:`_barycentric`)
+REWEIGHTING = 3
+
 Point = tuple[float, float]
 
 
@@ -127,23 +130,10 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
             centres[cycle] = centre
             for r in ring:
                 link(centre, r)
-    total = len(index)
-    inner = [v for v in range(total) if v not in boundary]
-    position = {v: i for i, v in enumerate(inner)}
-    matrix = np.zeros((len(inner), len(inner)))
-    rhs = np.zeros((len(inner), 2))
-    for v in inner:
-        row = position[v]
-        matrix[row, row] = len(adjacency[v])
-        for u in adjacency[v]:
-            if u in boundary:
-                rhs[row] += boundary[u]
-            else:
-                matrix[row, position[u]] -= 1.0
-    solved = np.linalg.solve(matrix, rhs) if inner else np.zeros((0, 2))
+    solved = _barycentric(len(index), adjacency, boundary)
 
     def at(key: tuple) -> Point:
-        x, y = solved[position[index[key]]]
+        x, y = solved[index[key]]
         return (float(x), float(y))
 
     crossings = {key[1]: at(key) for key in index if key[0] == "c"}
@@ -160,6 +150,86 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
     polygons = {cycle: [at(key) for key in _cycle_walk(diagram, cycle)] for cycle in cycles if cycle != outer}
     face_centres = {cycle: at(("f", cycle)) for cycle in centres}
     return _PieceGeometry(crossings, edges, polygons, face_centres)
+
+
+def _conjugate_gradient(apply, rhs: np.ndarray, start: np.ndarray, diagonal: np.ndarray,
+                        tolerance: float = 1e-13) -> np.ndarray:
+    """Solve ``apply(x) = rhs`` (symmetric positive definite) column by column, Jacobi-preconditioned.
+
+    A sparse solve by hand: the barycentric system has a few nonzeros a row, and dense
+    factorisation would cost cubic time.
+
+    >>> m = np.array([[4.0, 1.0], [1.0, 3.0]])
+    >>> x = _conjugate_gradient(lambda v: m @ v, np.array([[1.0], [2.0]]), np.zeros((2, 1)), np.diag(m))
+    >>> [round(float(v), 6) for v in x[:, 0]]
+    [0.090909, 0.636364]
+    """
+    x = start.copy()
+    r = rhs - apply(x)
+    z = r / diagonal[:, None]
+    p = z.copy()
+    rz = (r * z).sum(axis=0)
+    goal = tolerance * np.maximum(np.abs(rhs).max(axis=0), 1e-300)
+    for _ in range(20 * len(rhs) + 50):
+        if (np.abs(r).max(axis=0) <= goal).all():
+            break
+        q = apply(p)
+        pq = (p * q).sum(axis=0)
+        alpha = np.where(pq > 0, rz / np.where(pq > 0, pq, 1.0), 0.0)
+        x += alpha * p
+        r -= alpha * q
+        z = r / diagonal[:, None]
+        rz_new = (r * z).sum(axis=0)
+        beta = np.where(rz > 0, rz_new / np.where(rz > 0, rz, 1.0), 0.0)
+        p = z + beta * p
+        rz = rz_new
+    return x
+
+
+def _barycentric(total: int, adjacency: list[set[int]], boundary: dict[int, Point],
+                 rounds: int = REWEIGHTING) -> np.ndarray:
+    """Positions with every inner vertex a weighted average of its neighbours.
+
+    The first round weighs every edge alike (Tutte's embedding); each further round weighs an
+    edge by its length in the round before, which pulls long edges in and lets crowded
+    regions open up. Any positive weights keep the embedding planar (Floater 2003).
+    """
+    pairs = np.array(sorted({(a, b) for a in range(total) for b in adjacency[a] if a < b}), dtype=int).reshape(-1, 2)
+    fixed = np.zeros(total, dtype=bool)
+    xy = np.zeros((total, 2))
+    for v, p in boundary.items():
+        fixed[v] = True
+        xy[v] = p
+    inner = np.nonzero(~fixed)[0]
+    if not len(inner):
+        return xy
+    slot = -np.ones(total, dtype=int)
+    slot[inner] = np.arange(len(inner))
+    weights = np.ones(len(pairs))
+    a, b = pairs[:, 0], pairs[:, 1]
+    both = ~fixed[a] & ~fixed[b]
+    ia, ib = slot[a[both]], slot[b[both]]
+    for round_ in range(rounds + 1):
+        degree = np.bincount(slot[a[~fixed[a]]], weights[~fixed[a]], len(inner)) + \
+            np.bincount(slot[b[~fixed[b]]], weights[~fixed[b]], len(inner))
+        rhs = np.zeros((len(inner), 2))
+        for here, there in ((a, b), (b, a)):
+            pull = ~fixed[here] & fixed[there]
+            for axis in (0, 1):
+                rhs[:, axis] += np.bincount(slot[here[pull]], weights[pull] * xy[there[pull], axis], len(inner))
+        w = weights[both]
+
+        def apply(x: np.ndarray) -> np.ndarray:
+            out = degree[:, None] * x
+            for axis in range(x.shape[1]):
+                out[:, axis] -= np.bincount(ia, w * x[ib, axis], len(inner)) + np.bincount(ib, w * x[ia, axis], len(inner))
+            return out
+
+        start = xy[inner] if round_ else np.zeros((len(inner), 2))
+        xy[inner] = _conjugate_gradient(apply, rhs, start, degree)
+        lengths = np.sqrt(((xy[a] - xy[b]) ** 2).sum(axis=1))
+        weights = np.clip(lengths / lengths.mean(), 0.05, 20.0)
+    return xy
 
 
 # ---------------------------------------------------------------------- room inside a face
@@ -222,8 +292,8 @@ def outer_face(diagram: Diagram) -> int:
     """The face drawn outermost: the one touching most pieces, then the longest, then the first.
 
     >>> from movies.diagram.pd import from_pd
-    >>> outer_face(from_pd([[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]))
-    1
+    >>> outer_face(from_pd([[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]))  # a three-sided face
+    2
     """
     return min(diagram.faces, key=lambda f: (-len(diagram.faces[f]), -_walk_length(diagram, diagram.faces[f]), f))
 

@@ -1,0 +1,122 @@
+"""What s and the signatures say about the surface of a checked movie.
+
+For each end: s over Q and F₂ (and of the mirror image); each inequality that applies to the
+surface, with both sides; for knot ends, lower bounds for the 4-ball genus and, when one equals
+the genus of the surface in the movie, the statement that the surface is as small as possible.
+
+>>> from movies.language.movie import parse_movie
+>>> from movies.checker.replay import check_movie
+>>> report = surface_bounds(check_movie(parse_movie("start 3_1\\nband 1 4 in face 1\\nsimplify\\ndeath 1")))
+>>> report.notes[0]
+'the surface is not oriented compatibly with the start, so the s-inequalities do not apply'
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+
+from movies.bounds.inequalities import Bound, GenusBound, best_genus_bound, cobordism_bounds, four_genus_bounds
+from movies.diagram.model import Diagram
+from movies.homology.khovanov import bar_natan_complex, s_from_complex
+from movies.homology.rings import parse_field
+from movies.invariants.signature import levine_tristram_bound, signature
+
+FIELDS = ("Q", "F2")
+#: orders of the roots of unity tried for the Levine–Tristram bound (prime powers)
+LEVINE_TRISTRAM_ORDERS = (3, 4, 5, 7, 8, 9)
+
+
+class InternalInconsistency(Exception):
+    """A fully verified movie broke a theorem: that is a bug of this program, never of the movie."""
+
+
+@dataclass
+class BoundsReport:
+    s: dict = field(default_factory=dict)  # "start"/"end" -> {field: s} (None: not computed)
+    bounds: list[Bound] = field(default_factory=list)
+    genus_bounds: dict = field(default_factory=dict)  # "start"/"end" -> list[GenusBound]
+    least_genus: list[str] = field(default_factory=list)
+    notes: list[str] = field(default_factory=list)
+
+    @property
+    def violated(self) -> list[Bound]:
+        return [b for b in self.bounds if not b.holds]
+
+
+def s_values(diagram: Diagram) -> dict[str, int] | None:
+    """s over Q and F₂ of a knot or the empty link (s(∅) = 1); None for links of several components.
+
+    >>> from movies.diagram.constructors import empty
+    >>> s_values(empty())
+    {'Q': 1, 'F2': 1}
+    """
+    if diagram.is_empty():
+        return {f: 1 for f in FIELDS}
+    if diagram.component_count() != 1:
+        return None
+    final = bar_natan_complex(diagram, "Z")  # one scan over Z serves every field
+    return {f: s_from_complex(final, parse_field(f).p) for f in FIELDS}
+
+
+def knot_genus_bounds(diagram: Diagram) -> list[GenusBound]:
+    """Lower bounds for the 4-ball genus of a knot: |s|/2 over Q and F₂, |σ|/2, Levine–Tristram.
+
+    >>> from movies.diagram.constructors import torus_link
+    >>> best = best_genus_bound(knot_genus_bounds(torus_link(2, 5)))
+    >>> best.invariant, best.bound
+    ('s over Q', 2)
+    """
+    s = s_values(diagram)
+    lt = max(levine_tristram_bound(diagram, n) for n in LEVINE_TRISTRAM_ORDERS)
+    return four_genus_bounds(s or {}, signature(diagram), lt)
+
+
+def surface_bounds(result) -> BoundsReport:
+    """The s-inequalities and genus bounds for the surface of a checked movie (``CheckResult``)."""
+    report = BoundsReport()
+    surface = result.surface
+    if surface is None:
+        report.notes.append("no surface: the movie stops at an invalid step")
+        return report
+    start, end = result.movie.start, result.frames[-1]
+    for label, frame in (("start", start), ("end", end)):
+        report.s[label] = s_values(frame)
+        if frame.component_count() == 1:
+            report.genus_bounds[label] = knot_genus_bounds(frame)
+    if not surface.orientable or not surface.oriented_by_start:
+        report.notes.append("the surface is not oriented compatibly with the start, so the s-inequalities do not apply")
+        return report
+    if report.s["start"] is None or report.s["end"] is None:
+        links = [label for label in ("start", "end") if report.s[label] is None]
+        report.notes.append(
+            f"s of a link of several components is not computed yet, so the inequalities for this surface "
+            f"(the {' and '.join(links)} {'is a link' if len(links) == 1 else 'are links'}) are not checked"
+        )
+        return report
+    # knots and the empty link: s(m(K)) = -s(K) (Rasmussen 2010), and s(empty) = 1
+    mirror_s = {label: {f: (1 if frame.is_empty() else -v) for f, v in report.s[label].items()}
+                for label, frame in (("start", start), ("end", end))}
+    report.bounds = cobordism_bounds(
+        report.s["start"], report.s["end"], mirror_s["start"], mirror_s["end"], surface.euler_characteristic,
+        surface.every_component_meets_start, surface.every_component_meets_end,
+    )
+    if not report.bounds:
+        report.notes.append("some component of the surface meets neither end, so no s-inequality applies")
+    # least genus: a connected surface with one knot end and the other end empty or a knot
+    if surface.connected:
+        genus = surface.components[0].genus
+        for label, other in (("start", end), ("end", start)):
+            if label in report.genus_bounds and (other.is_empty() or other.is_crossingless() and other.component_count() == 1):
+                best = best_genus_bound(report.genus_bounds[label])
+                if genus and best.bound == genus:
+                    report.least_genus.append(
+                        f"the surface has the least possible genus ({genus}) for a surface in the 4-ball "
+                        f"bounded by the {label} knot: {best.invariant} = {best.value} gives g4 >= {best.bound}"
+                    )
+        tight = [b for b in report.bounds if b.tight]
+        if tight and not report.least_genus:
+            report.least_genus.append(
+                f"the inequality '{tight[0].statement}' is an equality: no oriented connected cobordism "
+                f"between these ends has larger Euler characteristic"
+            )
+    return report

@@ -1,0 +1,282 @@
+"""A diagram as an SVG picture: coloured strands with gaps, arrows, labels and highlights.
+
+Every edge is one ``<path class="strand">`` drawn from its tail crossing to its head crossing,
+so the direction of the path is the orientation; ``data-edge``, ``data-component``,
+``data-tail`` and ``data-head`` name what it is. Where the edge passes under at a crossing the
+path stops short of the crossing point (the gap); where it passes over it runs right through
+the point. Crossingless circles are closed paths. One colour per component, from
+:data:`PALETTE`.
+
+>>> from movies.diagram.pd import from_pd
+>>> text = diagram_svg(from_pd([[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]), labels=True)
+>>> text.startswith("<svg"), text.count('class="strand"'), text.count('class="arrow"')
+(True, 6, 6)
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+from html import escape
+
+from movies.diagram.model import Diagram, Side
+from movies.draw.curves import Strands, strands
+from movies.draw.geometry import sample
+from movies.draw.layout import Layout, layout
+
+#: component colours, in order of component name (our own choice: strong, and apart on white)
+PALETTE = ("#0b6e8a", "#c2452d", "#6a8d1f", "#7d3c98", "#d98c10", "#2b4fa8", "#a0306a", "#3d7a5c")
+
+#: what highlighting looks like
+HIGHLIGHT_FACE = "#ffe9a8"
+HIGHLIGHT_EDGE = "#ffb347"
+HIGHLIGHT_CROSSING = "#e0218a"
+
+
+@dataclass(frozen=True)
+class Highlight:
+    """The place of a move: edges, faces and crossings to mark (names in the diagram).
+
+    >>> Highlight(edges=(4, 10), faces=(1,)).is_empty()
+    False
+    """
+
+    edges: tuple[int, ...] = ()
+    faces: tuple[int, ...] = ()
+    crossings: tuple[int, ...] = ()
+
+    def is_empty(self) -> bool:
+        """True when nothing is marked."""
+        return not (self.edges or self.faces or self.crossings)
+
+
+@dataclass
+class _Canvas:
+    xmin: float
+    ymax: float
+    k: float
+    pad: float
+    width: float
+    height: float
+
+    def __call__(self, p) -> tuple[float, float]:
+        # SVG's y axis points down; the layout's points up
+        return ((p[0] - self.xmin) * self.k + self.pad, (self.ymax - p[1]) * self.k + self.pad)
+
+
+def _num(v: float) -> str:
+    text = f"{v:.3f}".rstrip("0").rstrip(".")
+    return "0" if text in ("-0", "") else text
+
+
+def _path_data(curve: list[tuple], canvas: _Canvas, closed: bool = False) -> str:
+    parts = []
+    for index, piece in enumerate(curve):
+        if index == 0:
+            x, y = canvas(piece[1])
+            parts.append(f"M{_num(x)} {_num(y)}")
+        if piece[0] == "L":
+            x, y = canvas(piece[2])
+            parts.append(f"L{_num(x)} {_num(y)}")
+        else:
+            (cx, cy), (x, y) = canvas(piece[2]), canvas(piece[3])
+            parts.append(f"Q{_num(cx)} {_num(cy)} {_num(x)} {_num(y)}")
+    if closed:
+        parts.append("Z")
+    return " ".join(parts)
+
+
+def _trimmed(curve: list[tuple], gaps: tuple[float, float]) -> list[tuple]:
+    """Cut the gaps off the straight first and last pieces of an edge's curve."""
+    curve = list(curve)
+
+    def cut(p, q, amount):
+        length = math.hypot(q[0] - p[0], q[1] - p[1])
+        f = min(amount / length, 0.9) if length else 0.0
+        return (p[0] + f * (q[0] - p[0]), p[1] + f * (q[1] - p[1]))
+
+    if gaps[0] > 0 and curve[0][0] == "L":
+        _, p, q = curve[0]
+        curve[0] = ("L", cut(p, q, gaps[0]), q)
+    if gaps[1] > 0 and curve[-1][0] == "L":
+        _, p, q = curve[-1]
+        curve[-1] = ("L", p, cut(q, p, gaps[1]))
+    return curve
+
+
+def _middle(points: list[tuple[float, float]]) -> tuple[tuple[float, float], tuple[float, float]]:
+    """The point halfway along a polyline, and the unit tangent there."""
+    lengths = [math.hypot(points[i + 1][0] - points[i][0], points[i + 1][1] - points[i][1]) for i in range(len(points) - 1)]
+    half = sum(lengths) / 2
+    for i, length in enumerate(lengths):
+        if half <= length and length > 0:
+            f = half / length
+            p, q = points[i], points[i + 1]
+            return (p[0] + f * (q[0] - p[0]), p[1] + f * (q[1] - p[1])), ((q[0] - p[0]) / length, (q[1] - p[1]) / length)
+        half -= length
+    return points[-1], (1.0, 0.0)
+
+
+def _cycle_points(diagram: Diagram, cycle: tuple[Side, ...], curves: dict[int, list[tuple]]) -> list[tuple[float, float]]:
+    points: list[tuple[float, float]] = []
+    for side in cycle:
+        line = sample(curves[side.edge])
+        points.extend(line if side.hand == "L" else line[::-1])
+    return points
+
+
+def _face_path(diagram: Diagram, face: int, curves, canvas: _Canvas, outer: bool) -> str:
+    rings = []
+    if outer:
+        rings.append(f"M0 0 H{_num(canvas.width)} V{_num(canvas.height)} H0 Z")
+    for cycle in diagram.faces[face]:
+        pts = [canvas(p) for p in _cycle_points(diagram, cycle, curves)]
+        if pts:
+            rings.append("M" + " L".join(f"{_num(x)} {_num(y)}" for x, y in pts) + " Z")
+    return " ".join(rings)
+
+
+def diagram_svg(diagram: Diagram, labels: bool = False, highlight: Highlight | dict | None = None,
+                size: int = 420, title: str | None = None) -> str:
+    """Draw a diagram as a self-contained SVG document.
+
+    Parameters
+    ----------
+    diagram : Diagram
+        Any diagram, split and crossingless ones and the empty one included.
+    labels : bool
+        Write edge names (beside each edge, in its component's colour), crossing names (dark,
+        on a white disk) and face names (grey, italic, inside each face).
+    highlight : Highlight or dict or None
+        Edges, faces and crossings to mark (a dict with keys ``edges``, ``faces``,
+        ``crossings`` works too); names the diagram does not have are ignored.
+    size : int
+        Width of the picture in pixels.
+    title : str or None
+        A tooltip title for the whole picture.
+
+    Returns
+    -------
+    str
+        The ``<svg>`` element, with nothing outside it referred to.
+
+    >>> from movies.diagram.constructors import unlink
+    >>> diagram_svg(unlink(0)).count("<path")
+    0
+    """
+    if isinstance(highlight, dict):
+        highlight = Highlight(**{k: tuple(v) for k, v in highlight.items()})
+    highlight = highlight or Highlight()
+    lay = layout(diagram)
+    drawn = strands(diagram, lay)
+    return render(diagram, lay, drawn, labels, highlight, size, title)
+
+
+def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highlight: Highlight,
+           size: int, title: str | None) -> str:
+    """The SVG text for a diagram whose layout and curves are already made (see :func:`diagram_svg`)."""
+    xmin, ymin, xmax, ymax = lay.bounds
+    pad = 14.0
+    k = (size - 2 * pad) / (xmax - xmin)
+    width, height = float(size), (ymax - ymin) * k + 2 * pad
+    canvas = _Canvas(xmin, ymax, k, pad, width, height)
+    stroke = min(size / 170, 0.22 * drawn.scale * k)
+    if drawn.smallest_gap:
+        # a gap must stay visible: no wider than the stroke allows
+        stroke = min(stroke, 1.6 * drawn.smallest_gap * k)
+    stroke = max(stroke, 0.8)
+    colour_of = {name: PALETTE[i % len(PALETTE)] for i, name in enumerate(sorted(diagram.components))}
+    out = [
+        f'<svg xmlns="http://www.w3.org/2000/svg" class="diagram" width="{_num(width)}" height="{_num(height)}" '
+        f'viewBox="0 0 {_num(width)} {_num(height)}" data-crossings="{diagram.crossing_count()}" '
+        f'data-components="{diagram.component_count()}">',
+    ]
+    if title:
+        out.append(f"<title>{escape(title)}</title>")
+    out.append(f'<rect x="0" y="0" width="{_num(width)}" height="{_num(height)}" fill="#ffffff"/>')
+    from movies.draw.layout import outer_face  # the face drawn outermost needs the canvas around it
+
+    root = outer_face(diagram) if diagram.faces else None
+    for face in highlight.faces:
+        if face in diagram.faces:
+            d = _face_path(diagram, face, drawn.curves, canvas, outer=face == root)
+            out.append(f'<path class="hl-face" data-face="{face}" d="{d}" fill="{HIGHLIGHT_FACE}" '
+                       f'fill-rule="evenodd" stroke="none"/>')
+    for edge in highlight.edges:
+        if edge in drawn.curves:
+            d = _path_data(drawn.curves[edge], canvas, closed=edge in diagram.loops)
+            out.append(f'<path class="hl-edge" data-edge="{edge}" d="{d}" fill="none" stroke="{HIGHLIGHT_EDGE}" '
+                       f'stroke-width="{_num(stroke * 4.5)}" stroke-linecap="round" stroke-linejoin="round" opacity="0.85"/>')
+    for edge in sorted(drawn.curves):
+        component = diagram.component_of(edge)
+        colour = colour_of[component]
+        closed = edge in diagram.loops
+        curve = drawn.curves[edge] if closed else _trimmed(drawn.curves[edge], drawn.gaps[edge])
+        ends = ""
+        if not closed:
+            tail, head = diagram.edge_ends[edge]
+            ends = f' data-tail="{tail.crossing}" data-head="{head.crossing}"'
+        out.append(f'<path class="strand" data-edge="{edge}" data-component="{component}"{ends} '
+                   f'd="{_path_data(curve, canvas, closed)}" fill="none" stroke="{colour}" '
+                   f'stroke-width="{_num(stroke)}" stroke-linecap="round" stroke-linejoin="round"/>')
+    for edge in sorted(drawn.curves):
+        pts = [canvas(p) for p in sample(drawn.curves[edge])]
+        (mx, my), (tx, ty) = _middle(pts)
+        a = stroke * 2.6
+        nx, ny = -ty, tx
+        tip = (mx + a * tx, my + a * ty)
+        left = (mx - a * tx + 0.75 * a * nx, my - a * ty + 0.75 * a * ny)
+        right = (mx - a * tx - 0.75 * a * nx, my - a * ty - 0.75 * a * ny)
+        out.append(f'<path class="arrow" data-edge="{edge}" d="M{_num(tip[0])} {_num(tip[1])} L{_num(left[0])} '
+                   f'{_num(left[1])} L{_num(right[0])} {_num(right[1])} Z" fill="{colour_of[diagram.component_of(edge)]}"/>')
+    for crossing in highlight.crossings:
+        if crossing in lay.crossings:
+            x, y = canvas(lay.crossings[crossing])
+            out.append(f'<circle class="hl-crossing" data-crossing="{crossing}" cx="{_num(x)}" cy="{_num(y)}" '
+                       f'r="{_num(stroke * 5)}" fill="none" stroke="{HIGHLIGHT_CROSSING}" stroke-width="{_num(stroke)}"/>')
+    if labels:
+        out.extend(_labels(diagram, lay, drawn, canvas, colour_of, stroke))
+    out.append("</svg>")
+    return "\n".join(out)
+
+
+def _labels(diagram, lay, drawn, canvas, colour_of, stroke) -> list[str]:
+    out = []
+    font = 11
+    for edge in sorted(drawn.curves):
+        pts = [canvas(p) for p in sample(drawn.curves[edge])]
+        (mx, my), (tx, ty) = _middle(pts)
+        # beside the arrow, on the strand's left in the picture
+        off = stroke * 2 + font * 0.75
+        x, y = mx + ty * off, my - tx * off
+        out.append(f'<text class="label-edge" data-edge="{edge}" x="{_num(x)}" y="{_num(y + font * 0.35)}" '
+                   f'font-family="sans-serif" font-size="{font}" text-anchor="middle" '
+                   f'fill="{colour_of[diagram.component_of(edge)]}">{edge}</text>')
+    for crossing, point in sorted(lay.crossings.items()):
+        # in the corner between the under-strand's arrival and the next dart
+        d0, d1 = drawn.directions[(crossing, 0)], drawn.directions[(crossing, 1)]
+        bx, by = d0[0] + d1[0], d0[1] + d1[1]
+        norm = math.hypot(bx, by) or 1.0
+        x, y = canvas(point)
+        off = stroke * 2 + font * 0.9
+        x, y = x + off * bx / norm, y - off * by / norm
+        out.append(f'<g class="label-crossing" data-crossing="{crossing}"><circle cx="{_num(x)}" cy="{_num(y)}" '
+                   f'r="{_num(font * 0.72)}" fill="#ffffff" stroke="#333333" stroke-width="0.8"/>'
+                   f'<text x="{_num(x)}" y="{_num(y + font * 0.33)}" font-family="sans-serif" font-size="{font - 2}" '
+                   f'text-anchor="middle" fill="#222222" font-weight="bold">{crossing}</text></g>')
+    for face, point in sorted(lay.face_points.items()):
+        x, y = canvas(point)
+        out.append(f'<text class="label-face" data-face="{face}" x="{_num(x)}" y="{_num(y + font * 0.35)}" '
+                   f'font-family="serif" font-style="italic" font-size="{font + 1}" text-anchor="middle" '
+                   f'fill="#777777">{face}</text>')
+    return out
+
+
+def svg_repr(diagram: Diagram) -> str:
+    """The picture a notebook shows for a diagram (labelled), for ``Diagram._repr_svg_``.
+
+    >>> from movies.diagram.constructors import unknot
+    >>> svg_repr(unknot()).count('class="label-face"')
+    2
+    """
+    return diagram_svg(diagram, labels=True, size=360)
