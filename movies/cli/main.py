@@ -77,6 +77,19 @@ def build_parser() -> argparse.ArgumentParser:
                      help="time each search may take (default 5; a movie's own 'budget' statement wins)")
     chk.set_defaults(run=_run_check)
 
+    bnd = commands.add_parser(
+        "bounds",
+        help="what s and the signatures say: 4-ball genus of a knot, or cobordisms between two links",
+        description="With one diagram: lower bounds for the 4-ball genus of a knot and the invariant that "
+        "gives the best one. With --to: whether an oriented cobordism of the given genus from the first "
+        "diagram to the second can exist, according to s over Q and F2.",
+    )
+    bnd.add_argument("spec", metavar="SPEC", help="the (first) diagram")
+    bnd.add_argument("--to", metavar="SPEC", help="the other end of a cobordism ('empty' for the 4-ball)")
+    bnd.add_argument("--genus", type=int, metavar="G", default=0, help="genus of the connected cobordism asked about")
+    bnd.add_argument("--json", action="store_true", help="print one JSON object")
+    bnd.set_defaults(run=_run_bounds)
+
     frm = commands.add_parser(
         "frames",
         help="print a frame of a movie with all its names",
@@ -186,6 +199,47 @@ def _run_frames(args: argparse.Namespace) -> int:
     heading = "the first frame" if at == 0 else f"the frame after step {at} ({result.steps[at - 1].source})"
     print(heading)
     print(result.frames[at].summary())
+    return EXIT_OK
+
+
+def _run_bounds(args: argparse.Namespace) -> int:
+    from movies.bounds.inequalities import best_genus_bound, cobordism_bounds
+    from movies.bounds.verdicts import knot_genus_bounds, s_values
+    from movies.language.spec import parse_diagram
+
+    first = parse_diagram(args.spec)
+    data: dict = {"first": args.spec}
+    lines = [args.spec]
+    if args.to is None:
+        if first.component_count() != 1:
+            raise InputError("the 4-ball genus bounds are for knots; give --to SPEC to ask about a cobordism")
+        bounds = knot_genus_bounds(first)
+        best = best_genus_bound(bounds)
+        data["four_genus_bounds"] = [{"invariant": b.invariant, "value": b.value, "bound": b.bound, "source": b.source}
+                                     for b in bounds]
+        data["best"] = {"invariant": best.invariant, "bound": best.bound}
+        lines += [f"  {b.invariant:<28} {b.value:>4}   g4 >= {b.bound}" for b in bounds]
+        lines.append(f"  best lower bound: g4 >= {best.bound}, from {best.invariant}")
+    else:
+        if args.genus < 0:
+            raise InputError("--genus is 0 or more")
+        second = parse_diagram(args.to)
+        s1, s2 = s_values(first), s_values(second)
+        if s1 is None or s2 is None:
+            raise InputError("s of a link of several components is not computed yet; give knots or 'empty'")
+        boundary = first.component_count() + second.component_count()
+        euler = 2 - 2 * args.genus - boundary
+        mirror1 = {f: (1 if first.is_empty() else -v) for f, v in s1.items()}
+        mirror2 = {f: (1 if second.is_empty() else -v) for f, v in s2.items()}
+        bounds = cobordism_bounds(s1, s2, mirror1, mirror2, euler, not first.is_empty(), not second.is_empty())
+        possible = all(b.holds for b in bounds)
+        data.update({"to": args.to, "genus": args.genus, "euler_characteristic": euler, "s": {"first": s1, "second": s2},
+                     "bounds": [b.as_json() for b in bounds], "allowed_by_s": possible})
+        lines.append(f"  to {args.to}, connected, genus {args.genus} (Euler characteristic {euler})")
+        lines.append(f"  s: {s1} and {s2}")
+        lines += [f"  {b.statement}: {b.lhs} >= {b.rhs} {'holds' if b.holds else 'FAILS'}" for b in bounds]
+        lines.append("  s allows such a cobordism" if possible else "  no such cobordism exists: s forbids it")
+    print(json.dumps(data) if args.json else "\n".join(lines))
     return EXIT_OK
 
 
