@@ -1,4 +1,4 @@
-"""Text layouts of the command line's reports.
+"""Text layouts of the command line's reports (a checked movie's lives in movies.checker.report).
 
 >>> print(invariants_text("demo", {"components": 1, "crossings": 0, "writhe": 0, "seifert_circles": 1,
 ...     "split_pieces": 1, "jones": [[0, 1]], "signature": 0, "linking_matrix": [[0]],
@@ -102,83 +102,5 @@ def invariants_text(label: str, facts: dict) -> str:
     return "\n".join([label] + [f"  {name:<16} {value}" for name, value in rows])
 
 
-def check_text(data: dict, source: str) -> str:
-    """The readable report of ``movies check``, from :func:`movies.checker.report.as_json` data."""
-    lines = [f"movie  {data['title'] or '(untitled)'}   [{source}]", ""]
-    table = [("step", "line", "move", "crossings", "components", "")]
-    table.append(("0", "", "start", str(data["start"]["crossings"]), str(data["start"]["components"]), ""))
-    for step in data["steps"]:
-        note = step["note"] if step["certified"] else f"UNPROVED: {step['note']}"
-        table.append((str(step["step"]), str(step["line"]), step["move"], str(step["crossings"]),
-                      str(step["components"]), note))
-    widths = [max(len(row[i]) for row in table) for i in range(5)]
-    widths[2] = min(widths[2], 36)
-    for row in table:
-        move = row[2] if len(row[2]) <= widths[2] else row[2][: widths[2] - 1] + "…"
-        cells = [row[0].rjust(widths[0]), row[1].rjust(widths[1]), move.ljust(widths[2]),
-                 row[3].rjust(widths[3]), row[4].rjust(widths[4])]
-        lines.append(("  " + "  ".join(cells) + ("   " + row[5] if row[5] else "")).rstrip())
-    for step in data["steps"]:
-        if step["found_moves"]:
-            lines.append("")
-            lines.append(f"  moves found for step {step['step']} (replay them with the ordinary moves):")
-            lines.extend(f"    {move}" for move in step["found_moves"])
-    s = data["surface"]
-    lines.append("")
-    if s is None:
-        lines.append("surface  not computed: the movie stops at an invalid step")
-    else:
-        lines.append(
-            f"surface  in {s['lives_in']}: Euler characteristic {s['euler_characteristic']} "
-            f"({_plural(s['births'], 'birth')}, {_plural(s['saddles'], 'band')}, {_plural(s['deaths'], 'death')})"
-        )
-        if not s["orientable"]:
-            orient = "not orientable"
-        elif s["oriented_by_start"]:
-            orient = "orientable, oriented compatibly with the start"
-        else:
-            orient = (f"orientable, but not compatibly with the orientation of the start "
-                      f"(step {s['orientation_broken_at_step']} breaks it)")
-        if not s["orientable"] and s["orientation_broken_at_step"]:
-            orient += f" (step {s['orientation_broken_at_step']} breaks the orientation)"
-        lines.append(f"         {orient}")
-        for index, c in enumerate(s["components"], start=1):
-            shape = f"genus {c['genus']}" if c["orientable"] else _plural(c["crosscaps"], "crosscap")
-            lines.append(
-                f"         component {index}: {shape}, χ = {c['euler_characteristic']}, "
-                f"{_plural(c['boundary_start'], 'boundary circle')} on the start, {c['boundary_end']} on the end"
-            )
-        lines.append(f"         every component meets the start: {'yes' if s['every_component_meets_start'] else 'no'}; "
-                     f"the end: {'yes' if s['every_component_meets_end'] else 'no'}")
-        if data["end"]["components"] == 0:
-            lines.append(f"         ribbon (no births): {'yes' if s['ribbon'] else 'no'}")
-        for claim in s["claims"]:
-            lines.append(f"  claim  surface {claim['claim']}: {'holds' if claim['holds'] else 'FALSE'} ({claim['detail']})")
-    if "s" in data:
-        lines.append("")
-        for end in ("start", "end"):
-            values = data["s"].get(end)
-            shown = ("not computed (a link)" if values is None
-                     else ", ".join(f"{v} over {f}" for f, v in values.items()))
-            lines.append(f"s        {end}: {shown}")
-        for bound in data["bounds"]:
-            verdict = "holds" if bound["holds"] else "FAILS"
-            tight = ", an equality" if bound["tight"] else ""
-            lines.append(f"  bound  {bound['statement']}: {bound['lhs']} >= {bound['rhs']} {verdict}{tight}")
-        for end, bounds in data["four_genus_bounds"].items():
-            shown = ", ".join(f"{b['invariant']} gives {b['bound']}" for b in bounds)
-            lines.append(f"  g4 of the {end} knot is at least: {shown}")
-        for statement in data["least_genus"]:
-            lines.append(f"  least genus: {statement}")
-        for note in data["bound_notes"]:
-            lines.append(f"  note   {note}")
-    for check in data["checkpoints"]:
-        lines.append(f"  line {check['line']}  {check['claim']}: {check['outcome']} ({check['detail']})")
-    lines.append("")
-    lines.append(f"VERDICT  {data['verdict']}: {data['verdict_meaning']}")
-    for finding in data["findings"]:
-        where = f"line {finding['line']}, column {finding['column']}"
-        lines.append(f"  [{finding['kind']}] {where}: {finding['message']}")
-        if finding["evidence"]:
-            lines.append(f"      {finding['evidence']}")
-    return "\n".join(lines)
+# the movie report is laid out next to its JSON, where the HTML report can use it too
+from movies.checker.report import as_text as check_text  # noqa: E402,F401
