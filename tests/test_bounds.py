@@ -74,8 +74,15 @@ def test_a_violation_in_a_verified_movie_is_an_internal_error(monkeypatch, capsy
     assert "bug of this program" in capsys.readouterr().err
 
 
-def test_links_are_said_to_be_unchecked():
-    result = check_movie(parse_movie("start L2a1{1}\nband 1 3"))
+def test_link_ends_with_a_linking_number_zero_sublink_are_said_to_be_unchecked():
+    result = check_movie(parse_movie("start L5a1{0}\nband 1 5 in face 2"))
     assert result.bounds.bounds == []
     assert "not computed yet" in result.bounds.notes[0]
     assert surface_bounds(result).s["start"] is None
+
+
+def test_hopf_link_end_is_judged():
+    result = check_movie(parse_movie("start L2a1{1}\nband 1 3"))
+    # positive Hopf link: s = w - O + 1 = 1 for a positive diagram (from memory)
+    assert result.bounds.s["start"] == {"Q": 1, "F2": 1}
+    assert result.bounds.bounds and all(b.holds for b in result.bounds.bounds)

@@ -16,8 +16,10 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 
 from movies.bounds.inequalities import Bound, GenusBound, best_genus_bound, cobordism_bounds, four_genus_bounds
+from movies.diagram.constructors import mirror
 from movies.diagram.model import Diagram
 from movies.homology.khovanov import bar_natan_complex, s_from_complex
+from movies.homology.links import SNotComputedError, link_s
 from movies.homology.rings import parse_field
 from movies.invariants.signature import levine_tristram_bound, signature
 
@@ -44,18 +46,30 @@ class BoundsReport:
 
 
 def s_values(diagram: Diagram) -> dict[str, int] | None:
-    """s over Q and F₂ of a knot or the empty link (s(∅) = 1); None for links of several components.
+    """s over Q and F₂ (s(∅) = 1); None for a link whose s is not computed yet.
 
-    >>> from movies.diagram.constructors import empty
-    >>> s_values(empty())
-    {'Q': 1, 'F2': 1}
+    >>> from movies.diagram.constructors import empty, unlink
+    >>> s_values(empty()), s_values(unlink(2))
+    ({'Q': 1, 'F2': 1}, {'Q': -1, 'F2': -1})
     """
     if diagram.is_empty():
         return {f: 1 for f in FIELDS}
     if diagram.component_count() != 1:
-        return None
+        try:
+            return {f: link_s(diagram, f) for f in FIELDS}
+        except SNotComputedError:
+            return None
     final = bar_natan_complex(diagram, "Z")  # one scan over Z serves every field
     return {f: s_from_complex(final, parse_field(f).p) for f in FIELDS}
+
+
+def mirror_s_values(diagram: Diagram, s: dict[str, int]) -> dict[str, int] | None:
+    """s of the mirror image: −s for knots (Rasmussen 2010), computed afresh for links."""
+    if diagram.is_empty():
+        return dict(s)
+    if diagram.component_count() == 1:
+        return {f: -v for f, v in s.items()}
+    return s_values(mirror(diagram))
 
 
 def knot_genus_bounds(diagram: Diagram) -> list[GenusBound]:
@@ -89,17 +103,23 @@ def surface_bounds(result) -> BoundsReport:
     if report.s["start"] is None or report.s["end"] is None:
         links = [label for label in ("start", "end") if report.s[label] is None]
         report.notes.append(
-            f"s of a link of several components is not computed yet, so the inequalities for this surface "
-            f"(the {' and '.join(links)} {'is a link' if len(links) == 1 else 'are links'}) are not checked"
+            f"s of the {' and '.join(links)} (a link in which a sublink has linking number zero with the rest) "
+            "is not computed yet, so the inequalities for this surface are not checked"
         )
         return report
-    # knots and the empty link: s(m(K)) = -s(K) (Rasmussen 2010), and s(empty) = 1
-    mirror_s = {label: {f: (1 if frame.is_empty() else -v) for f, v in report.s[label].items()}
-                for label, frame in (("start", start), ("end", end))}
+    mirror_s = {label: mirror_s_values(frame, report.s[label]) for label, frame in (("start", start), ("end", end))}
+    if mirror_s["start"] is None or mirror_s["end"] is None:
+        report.notes.append("s of the mirror image of an end is not computed yet; the mirror movie is not checked")
+        mirror_s = {label: dict(report.s[label]) for label in ("start", "end")}
+        skip_mirror = True
+    else:
+        skip_mirror = False
     report.bounds = cobordism_bounds(
         report.s["start"], report.s["end"], mirror_s["start"], mirror_s["end"], surface.euler_characteristic,
         surface.every_component_meets_start, surface.every_component_meets_end,
     )
+    if skip_mirror:
+        report.bounds = [b for b in report.bounds if not b.statement.startswith("mirror")]
     if not report.bounds:
         report.notes.append("some component of the surface meets neither end, so no s-inequality applies")
     # least genus: a connected surface with one knot end and the other end empty or a knot

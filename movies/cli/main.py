@@ -204,7 +204,7 @@ def _run_frames(args: argparse.Namespace) -> int:
 
 def _run_bounds(args: argparse.Namespace) -> int:
     from movies.bounds.inequalities import best_genus_bound, cobordism_bounds
-    from movies.bounds.verdicts import knot_genus_bounds, s_values
+    from movies.bounds.verdicts import knot_genus_bounds, mirror_s_values, s_values
     from movies.language.spec import parse_diagram
 
     first = parse_diagram(args.spec)
@@ -225,12 +225,13 @@ def _run_bounds(args: argparse.Namespace) -> int:
             raise InputError("--genus is 0 or more")
         second = parse_diagram(args.to)
         s1, s2 = s_values(first), s_values(second)
-        if s1 is None or s2 is None:
-            raise InputError("s of a link of several components is not computed yet; give knots or 'empty'")
+        mirror1 = mirror_s_values(first, s1) if s1 is not None else None
+        mirror2 = mirror_s_values(second, s2) if s2 is not None else None
+        if None in (s1, s2, mirror1, mirror2):
+            raise InputError("s of a link in which a sublink has linking number zero with the rest is not "
+                             "computed yet")
         boundary = first.component_count() + second.component_count()
         euler = 2 - 2 * args.genus - boundary
-        mirror1 = {f: (1 if first.is_empty() else -v) for f, v in s1.items()}
-        mirror2 = {f: (1 if second.is_empty() else -v) for f, v in s2.items()}
         bounds = cobordism_bounds(s1, s2, mirror1, mirror2, euler, not first.is_empty(), not second.is_empty())
         possible = all(b.holds for b in bounds)
         data.update({"to": args.to, "genus": args.genus, "euler_characteristic": euler, "s": {"first": s1, "second": s2},
