@@ -172,7 +172,7 @@ def test_trefoil():
     pd = [(1, 5, 2, 4), (3, 1, 4, 6), (5, 3, 6, 2)]
     assert crossing_signs(pd) == [1, 1, 1]
     assert kauffman_bracket_pd(pd) == A**-7 - A**-3 - A**5
-    # DESIGN.md (KnotInfo column jones_polynomial): V(3_1) = t + t^3 - t^4
+    # KnotInfo column jones_polynomial: V(3_1) = t + t^3 - t^4
     assert jones_polynomial_pd(pd, 3) == t(1) + t(3) - t(4)
 
 

@@ -408,7 +408,7 @@ def test_positive_table_diagrams_give_s_and_genus_from_seifert_circles():
     for row in rows:
         d = table_diagram(row)
         circles = len(check_seifert(d))
-        # KnotInfo column rasmussen_invariant; DESIGN.md: a positive diagram has s = w - O + 1
+        # KnotInfo column rasmussen_invariant; Rasmussen 2010: a positive diagram has s = w - O + 1
         assert int(row["rasmussen_invariant"]) == d.writhe() - circles + 1, row["name"]
         # KnotInfo column three_genus; Cromwell 1989: Seifert's algorithm on a positive diagram
         # gives a minimal genus surface, g = (c - O + 1) / 2

@@ -899,7 +899,7 @@ def test_saddle_effect_and_orientation_follow_the_rules(name, data):
     e = check_on_sphere(result.diagram)
     change = e.component_count() - d.component_count()
     assert result.effect == {-1: "merge", 0: "twist", 1: "split"}[change]
-    # DESIGN.md: oriented exactly when both arcs are walked the same way round the face
+    # common practice, no source: oriented exactly when both arcs are walked the same way round the face
     assert result.respects_orientation == (one.hand == two.hand)
     if result.respects_orientation:
         assert result.effect != "twist"

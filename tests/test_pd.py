@@ -320,7 +320,7 @@ def test_normalize_pd_returns_tuples_and_accepts_tuples():
 
 
 def test_the_table_trefoil_is_positive():
-    # DESIGN.md: KnotInfo's 3_1 is three positive crossings
+    # KnotInfo column pd_notation: the table's 3_1 has three positive crossings (from memory)
     assert crossing_signs(TREFOIL) == [1, 1, 1]
     # KnotInfo column pd_notation
     assert knot_pd(knot_row("3_1")) == TREFOIL

@@ -20,7 +20,7 @@ TREFOIL = [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]
 
 
 def test_unknot_and_unlinks():
-    # DESIGN.md: Kh(unknot) = q + q^-1; Kh is multiplicative under disjoint union (common
+    # Khovanov 2000: Kh(unknot) = q + q^-1; Kh is multiplicative under disjoint union (common
     # practice, no source)
     assert khovanov_homology(unknot()) == {(0, -1): 1, (0, 1): 1}
     assert khovanov_homology(unlink(2)) == {(0, -2): 1, (0, 0): 2, (0, 2): 1}

@@ -15,14 +15,14 @@ LINKS = ["L2a1{0}", "L2a1{1}", "L4a1{0}", "L4a1{1}"]
 
 
 def test_unknot():
-    # DESIGN.md and Khovanov 2000: Kh(unknot) = q + q^-1
+    # Khovanov 2000: Kh(unknot) = q + q^-1
     assert cube_homology([], loops=1) == {(0, -1): 1, (0, 1): 1}
     assert cube_homology([], p=2, loops=1) == {(0, -1): 1, (0, 1): 1}
 
 
 def test_trefoil_values_of_the_design_page():
     trefoil = [(1, 5, 2, 4), (3, 1, 4, 6), (5, 3, 6, 2)]
-    # DESIGN.md: Kh(3_1; Q) = q + q^3 + t^2 q^5 + t^3 q^9, over Z a Z/2 at t^3 q^7
+    # KnotInfo column khovanov_unreduced_integral_polynomial: Kh(3_1; Q) = q + q^3 + t^2 q^5 + t^3 q^9, over Z a Z/2 at t^3 q^7
     assert cube_homology(trefoil) == {(0, 1): 1, (0, 3): 1, (2, 5): 1, (3, 9): 1}
     assert cube_homology_z(trefoil)["torsion"] == {(3, 7): {2: 1}}
 

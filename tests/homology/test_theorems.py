@@ -49,7 +49,7 @@ def _positive_braid_knots(seed, count):
 @pytest.mark.parametrize("word", _positive_braid_knots(3, 14), ids=str)
 def test_positive_diagrams(word):
     d = from_braid(word)
-    # Rasmussen 2010, Thm. 4 (positive knots), as DESIGN.md states it: for a positive diagram
+    # Rasmussen 2010, Thm. 4 (positive knots): for a positive diagram
     # s = w - O + 1, w the writhe and O the number of Seifert circles
     expected = d.writhe() - d.seifert_circle_count() + 1
     assert rasmussen_s(d) == expected
