@@ -29,6 +29,13 @@ from movies.invariants.seifert import seifert_matrix
 from movies.invariants.signature import levine_tristram, signature
 from movies.invariants.summary import classical_invariants
 from movies.language.spec import parse_diagram
+from movies.checker.replay import CheckResult, check_movie
+from movies.draw import html_repr, svg_repr
+from movies.language.movie import parse_movie
+
+# notebooks show diagrams as drawings and checked movies as their report
+Diagram._repr_svg_ = svg_repr
+CheckResult._repr_html_ = html_repr
 
 __all__ = [
     "Diagram", "Side", "MoviesError",
@@ -37,5 +44,6 @@ __all__ = [
     "canonical_form", "same_on_sphere", "same_up_to_reflection",
     "jones_polynomial", "seifert_matrix", "signature", "levine_tristram",
     "alexander_polynomial", "determinant", "classical_invariants",
+    "parse_movie", "check_movie", "CheckResult",
 ]
 __version__ = "0.1.0"

@@ -90,7 +90,12 @@ def as_json(result: CheckResult) -> dict:
     return data
 
 
-def _plural(count: int, word: str) -> str:
+def plural(count: int, word: str) -> str:
+    """``count word``, with an s unless the count is one.
+
+    >>> plural(1, "band"), plural(2, "band")
+    ('1 band', '2 bands')
+    """
     return f"{count} {word}" + ("" if count == 1 else "s")
 
 
@@ -115,14 +120,28 @@ def as_text(data: dict, source: str) -> str:
             lines.append("")
             lines.append(f"  moves found for step {step['step']} (replay them with the ordinary moves):")
             lines.extend(f"    {move}" for move in step["found_moves"])
-    s = data["surface"]
     lines.append("")
+    lines.extend(surface_lines(data))
+    lines.append("")
+    lines.append(f"VERDICT  {data['verdict']}: {data['verdict_meaning']}")
+    lines.extend(finding_lines(data))
+    return "\n".join(lines)
+
+
+def surface_lines(data: dict) -> list[str]:
+    """The surface, the bounds, the claims and the checkpoints, as the report words them.
+
+    >>> surface_lines({"surface": None, "checkpoints": [], "end": {"components": 0}})
+    ['surface  not computed: the movie stops at an invalid step']
+    """
+    lines: list[str] = []
+    s = data["surface"]
     if s is None:
         lines.append("surface  not computed: the movie stops at an invalid step")
     else:
         lines.append(
             f"surface  in {s['lives_in']}: Euler characteristic {s['euler_characteristic']} "
-            f"({_plural(s['births'], 'birth')}, {_plural(s['saddles'], 'band')}, {_plural(s['deaths'], 'death')})"
+            f"({plural(s['births'], 'birth')}, {plural(s['saddles'], 'band')}, {plural(s['deaths'], 'death')})"
         )
         if not s["orientable"]:
             orient = "not orientable"
@@ -135,10 +154,10 @@ def as_text(data: dict, source: str) -> str:
             orient += f" (step {s['orientation_broken_at_step']} breaks the orientation)"
         lines.append(f"         {orient}")
         for index, c in enumerate(s["components"], start=1):
-            shape = f"genus {c['genus']}" if c["orientable"] else _plural(c["crosscaps"], "crosscap")
+            shape = f"genus {c['genus']}" if c["orientable"] else plural(c["crosscaps"], "crosscap")
             lines.append(
                 f"         component {index}: {shape}, χ = {c['euler_characteristic']}, "
-                f"{_plural(c['boundary_start'], 'boundary circle')} on the start, {c['boundary_end']} on the end"
+                f"{plural(c['boundary_start'], 'boundary circle')} on the start, {c['boundary_end']} on the end"
             )
         lines.append(f"         every component meets the start: {'yes' if s['every_component_meets_start'] else 'no'}; "
                      f"the end: {'yes' if s['every_component_meets_end'] else 'no'}")
@@ -166,11 +185,14 @@ def as_text(data: dict, source: str) -> str:
             lines.append(f"  note   {note}")
     for check in data["checkpoints"]:
         lines.append(f"  line {check['line']}  {check['claim']}: {check['outcome']} ({check['detail']})")
-    lines.append("")
-    lines.append(f"VERDICT  {data['verdict']}: {data['verdict_meaning']}")
+    return lines
+
+
+def finding_lines(data: dict) -> list[str]:
+    """The reasons behind the verdict, one finding (and its evidence) after another."""
+    lines = []
     for finding in data["findings"]:
-        where = f"line {finding['line']}, column {finding['column']}"
-        lines.append(f"  [{finding['kind']}] {where}: {finding['message']}")
+        lines.append(f"  [{finding['kind']}] line {finding['line']}, column {finding['column']}: {finding['message']}")
         if finding["evidence"]:
             lines.append(f"      {finding['evidence']}")
-    return "\n".join(lines)
+    return lines

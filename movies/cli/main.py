@@ -75,7 +75,23 @@ def build_parser() -> argparse.ArgumentParser:
     chk.add_argument("--json", action="store_true", help="print one JSON object instead of the report")
     chk.add_argument("--budget", type=float, metavar="SECONDS", default=None,
                      help="time each search may take (default 5; a movie's own 'budget' statement wins)")
+    chk.add_argument("--html", metavar="OUT.html", help="also write the report as one self-contained HTML page")
     chk.set_defaults(run=_run_check)
+
+    drw = commands.add_parser(
+        "draw",
+        help="draw a diagram as SVG (or PNG)",
+        description="Draw a diagram from its combinatorics: smooth strands, a gap in the under-strand, "
+        "orientation arrows, one colour per component. SPEC as for 'invariants'.",
+    )
+    drw.add_argument("spec", nargs="?", metavar="SPEC", help="the diagram, in the movie language's notation")
+    drw.add_argument("--pd", metavar="JSON", help="a PD code as a JSON list of 4-lists")
+    drw.add_argument("--braid", metavar="JSON", help="a braid word as a JSON list of signed generators")
+    drw.add_argument("--strands", type=int, metavar="N", help="number of strands of the --braid word")
+    drw.add_argument("--file", metavar="PATH", help="read SPEC from a file")
+    drw.add_argument("-o", "--output", metavar="FILE", required=True, help="FILE.svg, or FILE.png where a converter is found")
+    drw.add_argument("--labels", action="store_true", help="write the names of edges, crossings and faces")
+    drw.set_defaults(run=_run_draw)
 
     bnd = commands.add_parser(
         "bounds",
@@ -185,8 +201,73 @@ def _run_check(args: argparse.Namespace) -> int:
 
     result = _checked(args)
     data = as_json(result)
+    if args.html:
+        from movies.draw import movie_html
+
+        _write(args.html, movie_html(result, source=args.file))
     print(json.dumps(data) if args.json else check_text(data, args.file))
     return EXIT_OK if result.verified else EXIT_NOT_VERIFIED
+
+
+def _write(path: str, text: str) -> None:
+    try:
+        with open(path, "w", encoding="utf-8") as handle:
+            handle.write(text)
+    except OSError as err:
+        raise InputError(f"cannot write {path}: {err.strerror}") from None
+
+
+def svg_to_png(svg: str, path: str) -> None:
+    """Write a PNG through the first converter found on this machine (rsvg-convert, ImageMagick)."""
+    import shutil
+    import subprocess
+    import tempfile
+
+    for tool, command in (("rsvg-convert", ["rsvg-convert", "-o", path]),
+                          ("magick", ["magick", "svg:-", path]), ("convert", ["convert", "svg:-", path])):
+        if shutil.which(tool):
+            done = subprocess.run(command, input=svg.encode(), capture_output=True, check=False)
+            if done.returncode == 0:
+                return
+    chromium = shutil.which("chromium") or shutil.which("chromium-browser")
+    if chromium:
+        width, height = _svg_size(svg)
+        with tempfile.TemporaryDirectory() as folder:
+            page = os.path.join(folder, "drawing.html")
+            with open(page, "w", encoding="utf-8") as handle:
+                handle.write(f'<!DOCTYPE html><html><body style="margin:0">{svg}</body></html>')
+            done = subprocess.run(
+                [chromium, "--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run",
+                 "--disable-background-networking", "--disable-component-update", "--disable-sync",
+                 f"--user-data-dir={os.path.join(folder, 'profile')}", "--hide-scrollbars",
+                 f"--window-size={width},{height}", f"--screenshot={os.path.abspath(path)}", f"file://{page}"],
+                capture_output=True, check=False, timeout=120,
+            )
+            if done.returncode == 0 and os.path.exists(path):
+                return
+    raise InputError("no SVG to PNG converter was found (rsvg-convert, ImageMagick or Chromium); "
+                     "write an .svg instead")
+
+
+def _svg_size(svg: str) -> tuple[int, int]:
+    import re
+
+    found = re.search(r'width="([0-9.]+)" height="([0-9.]+)"', svg)
+    return (int(float(found.group(1))) + 1, int(float(found.group(2))) + 1) if found else (600, 600)
+
+
+def _run_draw(args: argparse.Namespace) -> int:
+    from movies.draw import diagram_svg
+
+    label, diagram = diagram_from_arguments(args)
+    svg = diagram_svg(diagram, labels=args.labels, title=label)
+    if args.output.lower().endswith(".png"):
+        svg_to_png(svg, args.output)
+    elif args.output.lower().endswith(".svg"):
+        _write(args.output, svg)
+    else:
+        raise InputError(f"the output {args.output} should end in .svg or .png")
+    return EXIT_OK
 
 
 def _run_frames(args: argparse.Namespace) -> int:

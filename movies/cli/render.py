@@ -18,6 +18,9 @@ from __future__ import annotations
 from fractions import Fraction
 
 from movies.algebra.laurent import LaurentPolynomial
+# the movie report is laid out next to its JSON, where the HTML report uses it too
+from movies.checker.report import as_text as check_text  # noqa: F401
+from movies.checker.report import plural
 
 
 def polynomial_text(terms: list[list], variable: str = "t") -> str:
@@ -72,10 +75,6 @@ def homology_rows(facts: dict) -> list[tuple[str, str]]:
     return rows
 
 
-def _plural(count: int, word: str) -> str:
-    return f"{count} {word}" + ("" if count == 1 else "s")
-
-
 def invariants_text(label: str, facts: dict) -> str:
     """The readable report of ``movies invariants``: one row per invariant."""
     rows = [
@@ -83,8 +82,8 @@ def invariants_text(label: str, facts: dict) -> str:
         (
             "crossings",
             f"{facts['crossings']}   (writhe {facts['writhe']}, "
-            f"{_plural(facts['seifert_circles'], 'Seifert circle')}, "
-            f"{_plural(facts['split_pieces'], 'split piece')})",
+            f"{plural(facts['seifert_circles'], 'Seifert circle')}, "
+            f"{plural(facts['split_pieces'], 'split piece')})",
         ),
         ("Jones", polynomial_text(facts["jones"])),
         ("signature", str(facts["signature"])),
@@ -102,5 +101,3 @@ def invariants_text(label: str, facts: dict) -> str:
     return "\n".join([label] + [f"  {name:<16} {value}" for name, value in rows])
 
 
-# the movie report is laid out next to its JSON, where the HTML report can use it too
-from movies.checker.report import as_text as check_text  # noqa: E402,F401

@@ -23,6 +23,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 
+import numpy as np
+
 from movies.diagram.model import Diagram, UNDER_IN, UNDER_OUT
 from movies.draw.geometry import crossings_between, sample
 from movies.draw.layout import Layout, Point
@@ -114,11 +116,39 @@ def _circle(centre: Point, radius: float, counterclockwise: bool) -> list[tuple]
     return _round(pts, 0.5, closed=True)
 
 
+def _clearance(diagram: Diagram, lay: Layout) -> dict[int, float]:
+    """crossing -> distance to the nearest point of the picture not on its own four edges."""
+    names = sorted(lay.crossings)
+    if not names:
+        return {}
+    owners, points = [], []
+    for edge, pts in lay.edges.items():
+        owners.extend([edge] * len(pts))
+        points.extend(pts)
+    for edge, (centre, radius, _) in lay.circles.items():
+        for k in range(CIRCLE_POINTS):
+            owners.append(edge)
+            points.append((centre[0] + radius * math.cos(2 * math.pi * k / CIRCLE_POINTS),
+                           centre[1] + radius * math.sin(2 * math.pi * k / CIRCLE_POINTS)))
+    owners_array, cloud = np.asarray(owners), np.asarray(points)
+    result = {}
+    for name in names:
+        mine = np.isin(owners_array, list(diagram.crossings[name]))
+        rest = cloud[~mine]
+        if not len(rest):
+            result[name] = math.inf
+            continue
+        p = np.asarray(lay.crossings[name])
+        result[name] = float(np.sqrt(((rest - p) ** 2).sum(axis=1)).min())
+    return result
+
+
 def _attempt(diagram: Diagram, lay: Layout, straight: float, smooth: float) -> Strands:
     result = Strands(setting=(straight, smooth))
     through: dict[tuple[int, int], Point] = {}
     reach: dict[int, float] = {}
     lengths = []
+    clearance = _clearance(diagram, lay)
     for name, point in lay.crossings.items():
         darts = []
         for position, edge in enumerate(diagram.crossings[name]):
@@ -126,7 +156,7 @@ def _attempt(diagram: Diagram, lay: Layout, straight: float, smooth: float) -> S
             pts = lay.edges[edge]
             neighbour = pts[1] if (tail.crossing, tail.position) == (name, position) else pts[-2]
             darts.append((neighbour[0] - point[0], neighbour[1] - point[1]))
-        reach[name] = 0.4 * min(math.hypot(*d) for d in darts)
+        reach[name] = 0.4 * min([math.hypot(*d) for d in darts] + [clearance[name]])
         own = [_unit(*d) for d in darts]
         chosen = own
         for amount in (straight, straight * 0.5, 0.0):

@@ -28,12 +28,22 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from movies.diagram.model import Diagram, Side
+from movies.draw.geometry import crossings_between
 
 #: subdivision points on each edge (at least 2, so that the subdivided graph is simple)
 SUBDIVISION = 3
 
+#: rounds of the planarity-keeping spring refinement after the barycentric solve (see :func:`refine`)
+REFINEMENT = 30
+
+#: barycentric sweeps of the helper vertices in each round of the refinement
+HELPER_SWEEPS = 1
+
 #: rounds of reweighting after the plain barycentric solve (see :func:`_barycentric`)
-REWEIGHTING = 3
+REWEIGHTING = 1
+
+#: each reweighting round weighs an edge by its length to this power
+WEIGHT_POWER = 1.0
 
 Point = tuple[float, float]
 
@@ -110,8 +120,11 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
         adjacency[b].add(a)
 
     walks = {cycle: [vertex(key) for key in _cycle_walk(diagram, cycle)] for cycle in cycles}
+    drawn = len(index)  # the vertices so far are the drawn ones: crossings and subdivision points
     boundary: dict[int, Point] = {}
     centres: dict[tuple[Side, ...], int] = {}
+    triangles: list[tuple[int, int, int]] = []
+    strokes: list[tuple[int, int]] = []
     for cycle, walk in walks.items():
         n = len(walk)
         ring = [vertex(("r", cycle, i)) for i in range(n)]
@@ -120,6 +133,8 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
             link(walk[i], ring[i])
             link(walk[(i + 1) % n], ring[i])
             link(ring[i], ring[(i + 1) % n])
+            triangles += [(walk[i], walk[(i + 1) % n], ring[i]), (walk[(i + 1) % n], ring[(i + 1) % n], ring[i])]
+            strokes.append((walk[i], walk[(i + 1) % n]))
         if cycle == outer:
             # clockwise: the outer face is on the left of its cycle
             for i, r in enumerate(ring):
@@ -128,9 +143,14 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
         else:
             centre = vertex(("f", cycle))
             centres[cycle] = centre
-            for r in ring:
+            for i, r in enumerate(ring):
                 link(centre, r)
+                triangles.append((centre, r, ring[(i + 1) % n]))
     solved = _barycentric(len(index), adjacency, boundary)
+    if REFINEMENT:
+        refined = refine(solved, adjacency, boundary, triangles, drawn, strokes, REFINEMENT)
+        if _planar(refined, strokes):
+            solved = refined
 
     def at(key: tuple) -> Point:
         x, y = solved[index[key]]
@@ -147,13 +167,196 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
                     + [at(("e", side.edge, i)) for i in range(1, SUBDIVISION + 1)]
                     + [crossings[head.crossing]]
                 )
-    polygons = {cycle: [at(key) for key in _cycle_walk(diagram, cycle)] for cycle in cycles if cycle != outer}
+    polygons = {cycle: _polygon(edges, cycle) for cycle in cycles if cycle != outer}
     face_centres = {cycle: at(("f", cycle)) for cycle in centres}
     return _PieceGeometry(crossings, edges, polygons, face_centres)
 
 
+def _polygon(edges: dict[int, list[Point]], cycle: tuple[Side, ...]) -> list[Point]:
+    """The polygon of a face cycle, walked with the face on the left."""
+    points: list[Point] = []
+    for side in cycle:
+        line = edges[side.edge]
+        points.extend(line[:-1] if side.hand == "L" else line[::-1][:-1])
+    return points
+
+
+def _spacing(edges: dict[int, list[Point]]) -> float:
+    """The shortest step between neighbouring points of any edge (how crowded a picture is)."""
+    return min(math.hypot(q[0] - p[0], q[1] - p[1]) for pts in edges.values() for p, q in zip(pts, pts[1:]))
+
+
+def turned_inside_out(geometry: _PieceGeometry, cycles: list[tuple[Side, ...]], outer: tuple[Side, ...]) -> _PieceGeometry:
+    """The same piece with ``outer`` made the outside face, by inversion in a circle inside it.
+
+    The map z -> 1/z keeps the picture planar, the crossings transversal and the orientation; the
+    segments are halved first, since inversion bends them. Returns a geometry in the unit disk.
+    """
+    (ox, oy), _ = inscribed_disk(geometry.face_polygons[outer], geometry.face_centres.get(outer))
+
+    def invert(p: Point) -> Point:
+        # z -> 1/z about the centre: an inversion followed by a reflection, so orientation is kept
+        dx, dy = p[0] - ox, p[1] - oy
+        r2 = dx * dx + dy * dy
+        return (dx / r2, -dy / r2)
+
+    edges = {}
+    for edge, pts in geometry.edges.items():
+        dense = [pts[0]]
+        for p, q in zip(pts, pts[1:]):
+            dense += [((p[0] + q[0]) / 2, (p[1] + q[1]) / 2), q]
+        edges[edge] = [invert(p) for p in dense]
+    crossings = {name: invert(p) for name, p in geometry.crossings.items()}
+    every = [p for pts in edges.values() for p in pts]
+    cx = (min(p[0] for p in every) + max(p[0] for p in every)) / 2
+    cy = (min(p[1] for p in every) + max(p[1] for p in every)) / 2
+    reach = max(math.hypot(p[0] - cx, p[1] - cy) for p in every) / 0.97
+
+    def fit(p: Point) -> Point:
+        return ((p[0] - cx) / reach, (p[1] - cy) / reach)
+
+    edges = {edge: [fit(p) for p in pts] for edge, pts in edges.items()}
+    crossings = {name: fit(p) for name, p in crossings.items()}
+    polygons = {cycle: _polygon(edges, cycle) for cycle in cycles if cycle != outer}
+    return _PieceGeometry(crossings, edges, polygons, {})
+
+
+def piece_geometry(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[Side, ...]) -> _PieceGeometry:
+    """The better of two pictures of a piece whose outside face is ``outer``.
+
+    Tutte's embedding with ``outer`` outside crowds the rest when ``outer`` is small (a kink's
+    monogon facing out leaves the piece hanging from one crossing); the embedding with the
+    longest face outside, turned inside out, often has more room. Whichever is less crowded wins.
+
+    >>> from movies.diagram.pd import from_pd
+    >>> d = from_pd([[1, 1, 2, 2]])
+    >>> cycles = [c for region in d.faces.values() for c in region]
+    >>> sorted(piece_geometry(d, cycles, min(cycles, key=len)).edges)
+    [1, 2]
+    """
+    chosen = direct = tutte_piece(diagram, cycles, outer)
+    longest = max(cycles, key=lambda c: (len(c), c))
+    if len(longest) > len(outer):
+        turned = turned_inside_out(tutte_piece(diagram, cycles, longest), cycles, outer)
+        # the turned picture has its segments halved: compare like with like
+        # inversion bends segments into arcs: keep the turned picture only if it is still planar
+        if 2 * _spacing(turned.edges) > _spacing(direct.edges) and not _crossings_of(turned.edges):
+            chosen = turned
+    crossings, edges = _open_kinks(diagram, chosen.crossings, chosen.edges, outer)
+    polygons = {cycle: _polygon(edges, cycle) for cycle in cycles if cycle != outer}
+    return _PieceGeometry(crossings, edges, polygons, chosen.face_centres)
+
+
+def _hanging_parts(diagram: Diagram, edges: set[int], outer: tuple[Side, ...]) -> list[tuple[int, int, set[int]]]:
+    """Parts of a piece that hang from one crossing: (crossing, first position, their edges).
+
+    A part hangs from crossing c when the edges at two neighbouring positions ``first`` and
+    ``first + 1`` reach each other, but not the other two, without passing through c (a kink
+    is the smallest). Of the two sides the smaller is listed, unless the ``outer`` face lies
+    inside it; biggest parts first.
+    """
+    outer_edges = {side.edge for side in outer}
+    found = []
+    for name, labels in diagram.crossings.items():
+        if labels[0] not in edges:
+            continue
+        for first in range(4):
+            start = {labels[first], labels[(first + 1) % 4]}
+            reached, todo = set(start), list(start)
+            while todo:
+                edge = todo.pop()
+                for dart in diagram.edge_ends[edge]:
+                    if dart.crossing == name:
+                        continue
+                    for other in diagram.crossings[dart.crossing]:
+                        if other not in reached:
+                            reached.add(other)
+                            todo.append(other)
+            rest = {labels[(first + 2) % 4], labels[(first + 3) % 4]}
+            if reached & rest or outer_edges <= reached:
+                continue  # not cut off, or the outer face lies inside this part
+            others = edges - reached
+            if len(others) < len(reached) and not outer_edges <= others:
+                continue  # the other side is the smaller part: that one hangs
+            found.append((name, first, reached))
+    found.sort(key=lambda item: (-len(item[2]), item[0], item[1]))
+    return found
+
+
+def _open_kinks(diagram: Diagram, crossings: dict[int, Point], edges: dict[int, list[Point]],
+                outer: tuple[Side, ...]) -> tuple[dict[int, Point], dict[int, list[Point]]]:
+    """Open up every part that hangs from one crossing (kinks above all) to a useful size.
+
+    The barycentric embedding shrinks such a part to almost nothing: it meets the rest only
+    at one crossing. Each is stretched about that crossing, in polar coordinates (angles
+    spread over the free angle between the crossing's other two ends, radii scaled up to the
+    nearest other point), a map that keeps it planar; it is kept only if the new picture
+    crosses nothing (else a smaller stretch is tried, or none). A kink's loop becomes a teardrop.
+    """
+    crossings, edges = dict(crossings), dict(edges)
+    for name, first, part in _hanging_parts(diagram, set(edges), outer):
+        c = crossings[name]
+        labels = diagram.crossings[name]
+
+        def direction(position: int) -> float:
+            other = labels[position]
+            t, h = diagram.edge_ends[other]
+            pts = edges[other]
+            q = pts[1] if (t.crossing, t.position) == (name, position) else pts[-2]
+            return math.atan2(q[1] - c[1], q[0] - c[0])
+
+        before, after = direction((first - 1) % 4), direction((first + 2) % 4)
+        sector = (after - before) % (2 * math.pi)
+        inside = {d.crossing for e in part for d in diagram.edge_ends[e]} - {name}
+        mine = set(labels) | part
+        others = [q for e, pts in edges.items() if e not in mine for q in pts]
+        others += [p for n, p in crossings.items() if n != name and n not in inside]
+        room = min((math.hypot(q[0] - c[0], q[1] - c[1]) for q in others), default=1.0)
+
+        def polar(q: Point) -> tuple[float, float]:
+            return math.hypot(q[0] - c[0], q[1] - c[1]), (math.atan2(q[1] - c[1], q[0] - c[0]) - before) % (2 * math.pi)
+
+        points = [q for e in part for q in edges[e] if q != c] + [crossings[n] for n in inside]
+        if not points:
+            continue
+        radii, angles = zip(*(polar(q) for q in points))
+        low, high, far = min(angles), max(angles), max(radii)
+        if not (0 < low <= high < sector) or far <= 0:
+            continue
+        width = min(0.7 * sector, math.radians(120 if len(part) > 1 else 70))
+        for scale in (0.55, 0.35, 0.2, 0.1, 0.05):
+            grow = scale * room / far
+            if grow <= 1 and len(part) > 1:
+                break
+
+            def stretch(q: Point) -> Point:
+                if q == c:
+                    return q
+                r, a = polar(q)
+                f = 0.5 if high == low else (a - low) / (high - low)
+                angle = before + sector / 2 + (f - 0.5) * width
+                return (c[0] + grow * r * math.cos(angle), c[1] + grow * r * math.sin(angle))
+
+            trial = dict(edges)
+            for e in part:
+                trial[e] = [stretch(q) for q in edges[e]]
+            if len(part) == 1:
+                # a kink: round its three points into a teardrop
+                (e,) = part
+                tail, head = diagram.edge_ends[e]
+                ring = [(c[0] + f * scale * room * math.cos(before + sector / 2 + a * width / 2),
+                         c[1] + f * scale * room * math.sin(before + sector / 2 + a * width / 2))
+                        for f, a in ((0.75, -1.0), (1.0, 0.0), (0.75, 1.0))]
+                trial[e] = [c] + (ring if tail.position == first else ring[::-1]) + [c]
+            if not crossings_between([trial[e] for e in sorted(trial)]):
+                edges = trial
+                crossings.update({n: stretch(crossings[n]) for n in inside})
+                break
+    return crossings, edges
+
+
 def _conjugate_gradient(apply, rhs: np.ndarray, start: np.ndarray, diagonal: np.ndarray,
-                        tolerance: float = 1e-13) -> np.ndarray:
+                        tolerance: float = 1e-11) -> np.ndarray:
     """Solve ``apply(x) = rhs`` (symmetric positive definite) column by column, Jacobi-preconditioned.
 
     A sparse solve by hand: the barycentric system has a few nonzeros a row, and dense
@@ -187,13 +390,14 @@ def _conjugate_gradient(apply, rhs: np.ndarray, start: np.ndarray, diagonal: np.
 
 
 def _barycentric(total: int, adjacency: list[set[int]], boundary: dict[int, Point],
-                 rounds: int = REWEIGHTING) -> np.ndarray:
+                 rounds: int | None = None) -> np.ndarray:
     """Positions with every inner vertex a weighted average of its neighbours.
 
     The first round weighs every edge alike (Tutte's embedding); each further round weighs an
     edge by its length in the round before, which pulls long edges in and lets crowded
     regions open up. Any positive weights keep the embedding planar (Floater 2003).
     """
+    rounds = REWEIGHTING if rounds is None else rounds
     pairs = np.array(sorted({(a, b) for a in range(total) for b in adjacency[a] if a < b}), dtype=int).reshape(-1, 2)
     fixed = np.zeros(total, dtype=bool)
     xy = np.zeros((total, 2))
@@ -228,14 +432,91 @@ def _barycentric(total: int, adjacency: list[set[int]], boundary: dict[int, Poin
         start = xy[inner] if round_ else np.zeros((len(inner), 2))
         xy[inner] = _conjugate_gradient(apply, rhs, start, degree)
         lengths = np.sqrt(((xy[a] - xy[b]) ** 2).sum(axis=1))
-        weights = np.clip(lengths / lengths.mean(), 0.05, 20.0)
+        weights = np.clip((lengths / lengths.mean()) ** WEIGHT_POWER, 1e-3, 1e3)
+    return xy
+
+
+def _crossings_of(edges: dict[int, list[Point]]) -> list:
+    return crossings_between([edges[e] for e in sorted(edges)])
+
+
+def _planar(xy: np.ndarray, strokes: list[tuple[int, int]]) -> bool:
+    """True when no two drawn segments cross (segments that share an end do not count)."""
+    return not crossings_between([[tuple(xy[a]), tuple(xy[b])] for a, b in strokes])
+
+
+def _orientations(xy: np.ndarray, tri: np.ndarray) -> np.ndarray:
+    a, b, c = xy[tri[:, 0]], xy[tri[:, 1]], xy[tri[:, 2]]
+    return (b[:, 0] - a[:, 0]) * (c[:, 1] - a[:, 1]) - (b[:, 1] - a[:, 1]) * (c[:, 0] - a[:, 0])
+
+
+def refine(xy: np.ndarray, adjacency: list[set[int]], boundary: dict[int, Point], triangles: list[tuple[int, int, int]],
+           drawn: int, strokes: list[tuple[int, int]], rounds: int) -> np.ndarray:
+    """Spread a barycentric picture out by springs, never letting a triangle turn over.
+
+    Drawn vertices (``0 .. drawn-1``) repel each other and are pulled along the drawn edges
+    (``strokes``) toward a common length; helper vertices follow as barycentres of their
+    neighbours. A move is undone for every vertex of a triangle it would turn over or flatten,
+    so every triangle keeps its orientation: the triangulated disk stays embedded, and with it
+    the drawn graph stays a planar straight-line drawing.
+
+    Parameters: positions, the triangulation (adjacency, fixed boundary, triangles), how many
+    vertices are drawn, the drawn edges, and the number of rounds. Returns new positions.
+    """
+    xy = xy.copy()
+    tri = np.asarray(triangles, dtype=int)
+    sign = np.sign(_orientations(xy, tri))
+    fixed = np.zeros(len(xy), dtype=bool)
+    fixed[list(boundary)] = True
+    helpers = np.array([v for v in range(drawn, len(xy)) if not fixed[v]], dtype=int)
+    # helper -> neighbour pairs, for the barycentric update of all helpers at once
+    rows = np.array([i for i, v in enumerate(helpers) for _ in adjacency[v]], dtype=int)
+    cols = np.array([u for v in helpers for u in adjacency[v]], dtype=int)
+    degree = np.bincount(rows, minlength=len(helpers)).astype(float)
+    edges = np.asarray(strokes, dtype=int)
+    movable = ~fixed[:drawn]
+    for round_ in range(rounds):
+        pts = xy[:drawn]
+        lengths = np.sqrt(((pts[edges[:, 0]] - pts[edges[:, 1]]) ** 2).sum(axis=1))
+        ideal = float(np.median(lengths))
+        if ideal <= 0:
+            break
+        delta = pts[:, None, :] - pts[None, :, :]
+        dist2 = (delta ** 2).sum(axis=2) + np.eye(drawn) * 1e9
+        near = dist2 < (3 * ideal) ** 2
+        push = np.where(near, ideal ** 2 / dist2, 0.0)
+        force = (delta * push[..., None]).sum(axis=1)
+        pull = (pts[edges[:, 1]] - pts[edges[:, 0]]) * (lengths / ideal)[:, None]
+        np.add.at(force, edges[:, 0], pull)
+        np.add.at(force, edges[:, 1], -pull)
+        size = np.sqrt((force ** 2).sum(axis=1))
+        # a step of at most a third of the distance to the nearest other drawn vertex
+        nearest = np.sqrt(dist2.min(axis=1))
+        step = np.minimum(size, 0.3 * nearest) * (1 - round_ / rounds)
+        move = np.where(size[:, None] > 0, force / np.maximum(size, 1e-300)[:, None] * step[:, None], 0.0)
+        move[~movable] = 0.0
+        trial = xy.copy()
+        trial[:drawn] += move
+        for _ in range(HELPER_SWEEPS):
+            if len(helpers):
+                sums = np.stack([np.bincount(rows, trial[cols, axis], len(helpers)) for axis in (0, 1)], axis=1)
+                trial[helpers] = sums / degree[:, None]
+        for _ in range(8):
+            bad = np.sign(_orientations(trial, tri)) != sign
+            if not bad.any():
+                break
+            undo = np.unique(tri[bad].ravel())
+            trial[undo] = xy[undo]
+        else:
+            trial = xy
+        xy = trial
     return xy
 
 
 # ---------------------------------------------------------------------- room inside a face
 
 
-def inscribed_disk(polygon: list[Point], hint: Point | None = None) -> tuple[Point, float]:
+def inscribed_disk(polygon: list[Point], hint: Point | None = None, rounds: int = 4) -> tuple[Point, float]:
     """A large disk inside a simple polygon: its centre and radius (a grid search, refined).
 
     >>> (cx, cy), r = inscribed_disk([(0, 0), (4, 0), (4, 2), (0, 2)])
@@ -265,8 +546,8 @@ def inscribed_disk(polygon: list[Point], hint: Point | None = None) -> tuple[Poi
     best = np.asarray(hint if hint is not None else pts.mean(axis=0), dtype=float)
     best_value = clearance(best[None])[0]
     span = high - low
-    for _ in range(4):
-        grid = np.stack(np.meshgrid(np.linspace(0, 1, 13), np.linspace(0, 1, 13)), axis=-1).reshape(-1, 2)
+    grid = np.stack(np.meshgrid(np.linspace(0, 1, 13), np.linspace(0, 1, 13)), axis=-1).reshape(-1, 2)
+    for _ in range(rounds):
         candidates = low + grid * span
         values = clearance(candidates)
         i = int(values.argmax())
@@ -336,7 +617,10 @@ def layout(diagram: Diagram) -> Layout:
     ([1, 2], [1, 2, 3])
     """
     result = Layout()
-    if not diagram.faces:
+    if not diagram.faces or not any(diagram.faces.values()):
+        # the empty diagram: one face, the whole sphere, and a short strip to name it in
+        result.face_points = {name: (0.0, 0.0) for name in diagram.faces}
+        result.bounds = (-1.15, -0.3, 1.15, 0.3)
         return result
     root = outer_face(diagram)
     cycle_piece = _cycle_piece(diagram)
@@ -370,13 +654,18 @@ def layout(diagram: Diagram) -> Layout:
             inside = [c for c in piece_cycles[piece] if c != outer][0]
             place_inside(side_region[inside], inside, centre, 0.9 * r)
             return
-        geometry = tutte_piece(diagram, piece_cycles[piece], outer)
+        geometry = piece_geometry(diagram, piece_cycles[piece], outer)
         result.crossings.update({c: move(p) for c, p in geometry.crossings.items()})
         result.edges.update({e: [move(p) for p in pts] for e, pts in geometry.edges.items()})
         for cycle, polygon in geometry.face_polygons.items():
             region = side_region[cycle]
             moved = [move(p) for p in polygon]
-            inner_centre, inner_radius = inscribed_disk(moved, move(geometry.face_centres[cycle]))
+            hint = geometry.face_centres.get(cycle)
+            if len(diagram.faces[region]) == 1 and hint is not None:
+                # a rough spot; the picture looks for room in the face as drawn when it labels it
+                result.face_points[region] = move(hint)
+                continue
+            inner_centre, inner_radius = inscribed_disk(moved, move(hint) if hint else None)
             if len(diagram.faces[region]) == 1:
                 result.face_points[region] = inner_centre
             else:

@@ -22,7 +22,7 @@ from html import escape
 from movies.diagram.model import Diagram, Side
 from movies.draw.curves import Strands, strands
 from movies.draw.geometry import sample
-from movies.draw.layout import Layout, layout
+from movies.draw.layout import Layout, inscribed_disk, layout, outer_face
 
 #: component colours, in order of component name (our own choice: strong, and apart on white)
 PALETTE = ("#0b6e8a", "#c2452d", "#6a8d1f", "#7d3c98", "#d98c10", "#2b4fa8", "#a0306a", "#3d7a5c")
@@ -65,7 +65,7 @@ class _Canvas:
 
 
 def _num(v: float) -> str:
-    text = f"{v:.3f}".rstrip("0").rstrip(".")
+    text = f"{v:.4f}".rstrip("0").rstrip(".")
     return "0" if text in ("-0", "") else text
 
 
@@ -128,7 +128,7 @@ def _cycle_points(diagram: Diagram, cycle: tuple[Side, ...], curves: dict[int, l
 def _face_path(diagram: Diagram, face: int, curves, canvas: _Canvas, outer: bool) -> str:
     rings = []
     if outer:
-        rings.append(f"M0 0 H{_num(canvas.width)} V{_num(canvas.height)} H0 Z")
+        rings.append(f"M0 0 L{_num(canvas.width)} 0 L{_num(canvas.width)} {_num(canvas.height)} L0 {_num(canvas.height)} Z")
     for cycle in diagram.faces[face]:
         pts = [canvas(p) for p in _cycle_points(diagram, cycle, curves)]
         if pts:
@@ -194,8 +194,6 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
     if title:
         out.append(f"<title>{escape(title)}</title>")
     out.append(f'<rect x="0" y="0" width="{_num(width)}" height="{_num(height)}" fill="#ffffff"/>')
-    from movies.draw.layout import outer_face  # the face drawn outermost needs the canvas around it
-
     root = outer_face(diagram) if diagram.faces else None
     for face in highlight.faces:
         if face in diagram.faces:
@@ -222,7 +220,9 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
     for edge in sorted(drawn.curves):
         pts = [canvas(p) for p in sample(drawn.curves[edge])]
         (mx, my), (tx, ty) = _middle(pts)
-        a = stroke * 2.6
+        length = sum(math.hypot(q[0] - p[0], q[1] - p[1]) for p, q in zip(pts, pts[1:]))
+        # an arrow no longer than a fifth of its edge
+        a = min(stroke * 2.6, 0.1 * length)
         nx, ny = -ty, tx
         tip = (mx + a * tx, my + a * ty)
         left = (mx - a * tx + 0.75 * a * nx, my - a * ty + 0.75 * a * ny)
@@ -264,7 +264,13 @@ def _labels(diagram, lay, drawn, canvas, colour_of, stroke) -> list[str]:
                    f'r="{_num(font * 0.72)}" fill="#ffffff" stroke="#333333" stroke-width="0.8"/>'
                    f'<text x="{_num(x)}" y="{_num(y + font * 0.33)}" font-family="sans-serif" font-size="{font - 2}" '
                    f'text-anchor="middle" fill="#222222" font-weight="bold">{crossing}</text></g>')
+    root = outer_face(diagram)
     for face, point in sorted(lay.face_points.items()):
+        cycles = diagram.faces[face]
+        if face != root and len(cycles) == 1:
+            # the rounded curves cut corners: look for room inside the face as drawn
+            polygon = _cycle_points(diagram, cycles[0], drawn.curves)
+            point, _ = inscribed_disk(polygon[::3] if len(polygon) > 60 else polygon, point, rounds=2)
         x, y = canvas(point)
         out.append(f'<text class="label-face" data-face="{face}" x="{_num(x)}" y="{_num(y + font * 0.35)}" '
                    f'font-family="serif" font-style="italic" font-size="{font + 1}" text-anchor="middle" '

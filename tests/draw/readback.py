@@ -235,12 +235,15 @@ def check_drawing(diagram, text: str, visible: bool = True) -> dict:
             continue  # too small to read a direction off after rounding
         pts = strands[edge]["points"]
         steps = [i for i in range(len(pts) - 1) if _distance(pts[i], pts[i + 1]) > 1e-9]
-        # the arrow is centred on the path: find the path's step through its centre
+        # the arrow is centred on the path: the steps of the path near its centre run its way
         centre = ((tip[0] + base[0]) / 2, (tip[1] + base[1]) / 2)
-        k = min(steps, key=lambda i: _distance(pts[i], centre) + _distance(pts[i + 1], centre) - _distance(pts[i], pts[i + 1]))
-        forward = (pts[k + 1][0] - pts[k][0], pts[k + 1][1] - pts[k][1])
-        assert forward[0] * (tip[0] - base[0]) + forward[1] * (tip[1] - base[1]) > 0, \
-            f"the arrow on edge {edge} points backwards"
+        reach = _distance(tip, base)
+        near = [i for i in steps if min(_distance(pts[i], centre), _distance(pts[i + 1], centre)) <= reach]
+        dots = [(pts[i + 1][0] - pts[i][0]) * (tip[0] - base[0]) + (pts[i + 1][1] - pts[i][1]) * (tip[1] - base[1])
+                for i in near]
+        if any(d < 0 for d in dots) and any(d > 0 for d in dots):
+            continue  # the path turns back within the arrow's length (a hairpin): no direction to read
+        assert dots and all(d > 0 for d in dots), f"the arrow on edge {edge} points backwards"
 
     # faces: each boundary cycle has the face on its left
     piece_of = {edge: i for i, piece in enumerate(diagram.pieces()) for edge in piece}

@@ -173,3 +173,18 @@ def test_components_get_different_colours_and_circles_run_their_way():
 
 def test_notebook_picture_is_labelled():
     assert 'class="label-edge"' in svg_repr(from_braid([1, 1, 1]))
+
+
+def test_arrows_turned_around_fail_the_readback():
+    diagram = parse_diagram("4_1")
+    root = ET.fromstring(diagram_svg(diagram))
+    for element in root.iter():
+        if element.get("class") == "arrow":
+            points, _ = parse_path(element.get("d"))
+            (tx, ty), (lx, ly), (rx, ry) = points[:3]
+            # the same triangle pointing the other way: the tip where the base was
+            bx, by = (lx + rx) / 2, (ly + ry) / 2
+            cx, cy = tx - bx, ty - by
+            element.set("d", f"M{bx} {-by} L{lx + cx} {-(ly + cy)} L{rx + cx} {-(ry + cy)} Z")
+    with pytest.raises(AssertionError, match="arrow"):
+        check_drawing(diagram, ET.tostring(root, encoding="unicode"))
