@@ -2,16 +2,15 @@
 
 Run: python tests/bench/bench_checker.py   (writes tests/bench/results/checker.md)
 
-The movie is made here from a fixed seed: a 15-crossing braid closure, then 40 random legal
-moves (kinks added and removed, bigons added and removed, triangles moved, bands), written out
-as movie text. The time measured is reading and checking the text, median of repeated runs.
+The movie is made from a fixed seed (tests/draw/randomized.py): a 15-crossing braid closure, then
+40 random legal moves (kinks and bigons added and removed, triangles moved, births, bands),
+written out as movie text. The time measured is reading and checking the text, median of repeated runs.
 """
 
 from __future__ import annotations
 
 import os
 import platform
-import random
 import statistics
 import sys
 import time
@@ -19,60 +18,18 @@ from datetime import date
 from pathlib import Path
 
 from movies.checker.replay import check_movie
-from movies.diagram import moves
-from movies.diagram.constructors import from_braid
-from movies.errors import MoveError
 from movies.language.movie import parse_movie
 
 RESULTS = Path(__file__).resolve().parent / "results" / "checker.md"
-
-
-def random_movie(seed: int, steps: int = 40) -> tuple[str, list[int]]:
-    rng = random.Random(seed)
-    word = [rng.choice([1, 2, 3, -1, -2, -3]) for _ in range(15)]
-    frame = from_braid(word, strands=4)
-    lines = [f"title random movie {seed}", f"start braid(4){word}".replace(" ", "")]
-    sizes = []
-    while len(lines) - 2 < steps:
-        choice = rng.random()
-        try:
-            if choice < 0.2 and frame.crossing_count() < 18:
-                edge = rng.choice(frame.edges())
-                hand, sign = rng.choice("LR"), rng.choice([1, -1])
-                new = moves.r1_add(frame, edge, hand, sign)
-                text = f"R1 add {edge} {'left' if hand == 'L' else 'right'} {'+' if sign > 0 else '-'}"
-            elif choice < 0.4:
-                kinks = [c for c in frame.crossings if moves.kinks_at(frame, c)]
-                c = rng.choice(kinks)
-                new, text = moves.r1_remove(frame, c), f"R1 remove {c}"
-            elif choice < 0.55 and frame.crossing_count() < 17:
-                face = rng.choice(sorted(frame.faces))
-                edges = sorted({s.edge for cycle in frame.faces[face] for s in cycle})
-                a, b = rng.sample(edges, 2)
-                new, text = moves.r2_add(frame, a, b, face), f"R2 add {a} over {b} in face {face}"
-            elif choice < 0.75:
-                face = rng.choice(sorted(frame.faces))
-                new, text = moves.r2_remove(frame, face), f"R2 remove face {face}"
-            elif choice < 0.95:
-                face = rng.choice(sorted(frame.faces))
-                new, text = moves.r3(frame, face), f"R3 face {face}"
-            else:
-                face = rng.choice(sorted(frame.faces))
-                edges = sorted({s.edge for cycle in frame.faces[face] for s in cycle})
-                a, b = rng.sample(edges, 2)
-                new, text = moves.saddle(frame, a, b, face).diagram, f"band {a} {b} in face {face}"
-        except (MoveError, ValueError, IndexError):
-            continue
-        frame = new
-        lines.append(text)
-        sizes.append(frame.crossing_count())
-    return "\n".join(lines) + "\n", sizes
+sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
+from draw.randomized import random_movie  # noqa: E402  (the same random movies the drawing bench uses)
 
 
 def main() -> int:
     rows = []
     for seed in (1, 2, 3):
-        text, sizes = random_movie(seed)
+        text, frames = random_movie(seed)
+        sizes = [frame.crossing_count() for frame in frames[1:]]
         times = []
         for _ in range(5):
             started = time.perf_counter()
