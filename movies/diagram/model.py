@@ -250,6 +250,11 @@ class Diagram:
         """The faces in which split piece ``piece`` (an index into :meth:`pieces`) meets others.
 
         Those are the faces that hold a cycle of this piece and a cycle of another piece.
+
+        >>> from movies.diagram.pd import from_pd
+        >>> two = from_pd([[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]], loops=1)
+        >>> two.region_of_piece(1), two.faces[2]
+        ([2], ((1R, 3R, 5R), (7R,)))
         """
         edges = set(self.pieces()[piece])
         return sorted(
