@@ -12,6 +12,7 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
+from support.sphere import check_on_sphere
 from movies.diagram.model import (
     Dart,
     Diagram,
@@ -58,58 +59,6 @@ def table_diagram(row) -> Diagram:
 
 
 # ---------------------------------------------------------------------- a check from first principles
-
-
-def check_on_sphere(d: Diagram) -> None:
-    """Everything the model promises about faces and components, checked from the definitions.
-
-    - every side of every edge lies on exactly one face cycle;
-    - along a face cycle (face on the left) each side ends at a crossing dart p and the next side
-      starts at the dart p - 1 (counterclockwise numbering: turn left);
-    - each connected piece with V crossings has V + 2 cycles (Euler characteristic 2), a circle 2;
-    - pieces and faces form a tree (a face holds one cycle of each piece that touches it);
-    - components list their edges along next_edge, from the smallest.
-    """
-    ends = d.edge_ends
-    sides = sorted(s for cycles in d.faces.values() for cycle in cycles for s in cycle)
-    assert sides == sorted(Side(e, h) for e in d.edges() for h in "LR")
-    dart_edge = {Dart(c, p): label for c, labels in d.crossings.items() for p, label in enumerate(labels)}
-    for cycles in d.faces.values():
-        for cycle in cycles:
-            assert cycle == canonical_cycle(cycle)
-            if cycle[0].edge in d.loops:
-                assert len(cycle) == 1
-                continue
-            for i, side in enumerate(cycle):
-                following = cycle[(i + 1) % len(cycle)]
-                tail, head = ends[side.edge]
-                corner = head if side.hand == "L" else tail
-                leave = Dart(corner.crossing, (corner.position - 1) % 4)
-                assert dart_edge[leave] == following.edge
-                f_tail, f_head = ends[following.edge]
-                assert (f_tail if following.hand == "L" else f_head) == leave
-    piece_of = {e: i for i, piece in enumerate(d.pieces()) for e in piece}
-    per_piece: dict[int, int] = {}
-    graph = nx.MultiGraph()
-    for name, cycles in d.faces.items():
-        graph.add_node(("face", name))
-        for cycle in cycles:
-            piece = piece_of[cycle[0].edge]
-            assert all(piece_of[s.edge] == piece for s in cycle)
-            per_piece[piece] = per_piece.get(piece, 0) + 1
-            graph.add_edge(("face", name), ("piece", piece))
-    for i, piece in enumerate(d.pieces()):
-        vertices = {ends[e][0].crossing for e in piece if e not in d.loops}
-        assert per_piece[i] == (len(vertices) + 2 if vertices else 2)
-    assert nx.is_tree(nx.Graph(graph)) and graph.number_of_edges() == nx.Graph(graph).number_of_edges()
-    assert sorted(e for edges in d.components.values() for e in edges) == d.edges()
-    for edges in d.components.values():
-        assert edges[0] == min(edges)
-        for i, e in enumerate(edges):
-            assert d.next_edge(e) == edges[(i + 1) % len(edges)]
-
-
-# ---------------------------------------------------------------------- faces
 
 
 def test_hopf_faces_by_hand():
