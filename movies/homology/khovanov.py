@@ -126,18 +126,7 @@ def _reduced_complex(d: Diagram, ring: Ring, basepoint, progress) -> FinalComple
     cut = [tuple(c) for c in cut]
     cx = scan_complex(cut, ring, order, progress)
     n_plus, n_minus = _signs(d)
-    index = {}
-    gens = []
-    for i in sorted(cx.m, key=lambda i: (cx.h[i], cx.q[i], i)):
-        index[i] = len(gens)
-        gens.append((cx.h[i] - n_minus, cx.q[i] + n_plus - 2 * n_minus))
-    entries = {}
-    for i, row in cx.out.items():
-        for j, morphism in row.items():
-            c = morphism.get(0, 0)  # the undotted sheet; a dot at the basepoint acts as 0
-            if c and cx.q[i] == cx.q[j]:
-                entries[(index[i], index[j])] = c
-    return _with_loops(FinalComplex(gens, entries), d.loop_count())
+    return _with_loops(finish(cx, n_plus, n_minus, without_h=True), d.loop_count())
 
 
 def khovanov_homology(diagram, field: str = "Q", reduced: bool = False, basepoint=None,

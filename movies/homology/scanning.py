@@ -513,11 +513,13 @@ def scan(pd, ring: Ring, order=None, progress=None, n_plus=None, n_minus=None) -
     return finish(scan_complex(pd, ring, order, progress), n_plus, n_minus)
 
 
-def finish(cx: Complex, n_plus: int, n_minus: int) -> FinalComplex:
+def finish(cx: Complex, n_plus: int, n_minus: int, without_h: bool = False) -> FinalComplex:
     """Read a complex of tangles with no boundary as a :class:`FinalComplex`.
 
     Parameters: the complex and the numbers of positive and negative crossings, which give
-    the shifts ``[-n_-]{n_+ - 2 n_-}``. Returns generators sorted by bidegree and the entries.
+    the shifts ``[-n_-]{n_+ - 2 n_-}``; ``without_h``: keep only the entries that preserve the
+    q-degree (H = 0; the reduced complex, read through a basepoint where a dot acts as 0).
+    Returns generators sorted by bidegree and the entries.
 
     >>> cx = Complex(RING_Z); _ = cx.add_object(0, (), 1)
     >>> finish(cx, 1, 0)
@@ -531,7 +533,7 @@ def finish(cx: Complex, n_plus: int, n_minus: int) -> FinalComplex:
     entries = {}
     for i, row in cx.out.items():
         for j, morphism in row.items():
-            c = morphism.get(0, 0)
-            if c:
+            c = morphism.get(0, 0)  # the undotted sheet
+            if c and (not without_h or cx.q[i] == cx.q[j]):
                 entries[(index[i], index[j])] = c
     return FinalComplex(gens, entries)
