@@ -74,11 +74,12 @@ def test_a_violation_in_a_verified_movie_is_an_internal_error(monkeypatch, capsy
     assert "bug of this program" in capsys.readouterr().err
 
 
-def test_link_ends_with_a_linking_number_zero_sublink_are_said_to_be_unchecked():
+def test_link_ends_with_a_linking_number_zero_sublink_are_judged():
     result = check_movie(parse_movie("start L5a1{0}\nband 1 5 in face 2"))
-    assert result.bounds.bounds == []
-    assert "not computed yet" in result.bounds.notes[0]
-    assert surface_bounds(result).s["start"] is None
+    assert result.verdict == "verified"
+    report = surface_bounds(result)
+    assert report.s["start"] == {"Q": -1, "F2": -1}  # the Whitehead link, from its canonical class
+    assert report.bounds and all(b.holds for b in report.bounds)
 
 
 def test_hopf_link_end_is_judged():

@@ -19,7 +19,7 @@ from movies.bounds.inequalities import Bound, GenusBound, best_genus_bound, cobo
 from movies.diagram.constructors import mirror
 from movies.diagram.model import Diagram
 from movies.homology.khovanov import bar_natan_complex, s_from_complex
-from movies.homology.links import SNotComputedError, link_s
+from movies.homology.links import link_s_values
 from movies.homology.rings import parse_field
 from movies.invariants.signature import levine_tristram_bound, signature
 
@@ -34,7 +34,7 @@ class InternalInconsistency(Exception):
 
 @dataclass
 class BoundsReport:
-    s: dict = field(default_factory=dict)  # "start"/"end" -> {field: s} (None: not computed)
+    s: dict = field(default_factory=dict)  # "start"/"end" -> {field: s}
     bounds: list[Bound] = field(default_factory=list)
     genus_bounds: dict = field(default_factory=dict)  # "start"/"end" -> list[GenusBound]
     least_genus: list[str] = field(default_factory=list)
@@ -45,8 +45,8 @@ class BoundsReport:
         return [b for b in self.bounds if not b.holds]
 
 
-def s_values(diagram: Diagram) -> dict[str, int] | None:
-    """s over Q and F₂ (s(∅) = 1); None for a link whose s is not computed yet.
+def s_values(diagram: Diagram) -> dict[str, int]:
+    """s over Q and F₂ (s(∅) = 1), one scan over Z serving both fields.
 
     >>> from movies.diagram.constructors import empty, unlink
     >>> s_values(empty()), s_values(unlink(2))
@@ -55,15 +55,12 @@ def s_values(diagram: Diagram) -> dict[str, int] | None:
     if diagram.is_empty():
         return {f: 1 for f in FIELDS}
     if diagram.component_count() != 1:
-        try:
-            return {f: link_s(diagram, f) for f in FIELDS}
-        except SNotComputedError:
-            return None
+        return link_s_values(diagram, FIELDS)
     final = bar_natan_complex(diagram, "Z")  # one scan over Z serves every field
     return {f: s_from_complex(final, parse_field(f).p) for f in FIELDS}
 
 
-def mirror_s_values(diagram: Diagram, s: dict[str, int]) -> dict[str, int] | None:
+def mirror_s_values(diagram: Diagram, s: dict[str, int]) -> dict[str, int]:
     """s of the mirror image: −s for knots (Rasmussen 2010), computed afresh for links."""
     if diagram.is_empty():
         return dict(s)
@@ -82,7 +79,7 @@ def knot_genus_bounds(diagram: Diagram) -> list[GenusBound]:
     """
     s = s_values(diagram)
     lt = max(levine_tristram_bound(diagram, n) for n in LEVINE_TRISTRAM_ORDERS)
-    return four_genus_bounds(s or {}, signature(diagram), lt)
+    return four_genus_bounds(s, signature(diagram), lt)
 
 
 def surface_bounds(result) -> BoundsReport:
@@ -100,26 +97,11 @@ def surface_bounds(result) -> BoundsReport:
     if not surface.orientable or not surface.oriented_by_start:
         report.notes.append("the surface is not oriented compatibly with the start, so the s-inequalities do not apply")
         return report
-    if report.s["start"] is None or report.s["end"] is None:
-        links = [label for label in ("start", "end") if report.s[label] is None]
-        report.notes.append(
-            f"s of the {' and '.join(links)} (a link in which a sublink has linking number zero with the rest) "
-            "is not computed yet, so the inequalities for this surface are not checked"
-        )
-        return report
     mirror_s = {label: mirror_s_values(frame, report.s[label]) for label, frame in (("start", start), ("end", end))}
-    if mirror_s["start"] is None or mirror_s["end"] is None:
-        report.notes.append("s of the mirror image of an end is not computed yet; the mirror movie is not checked")
-        mirror_s = {label: dict(report.s[label]) for label in ("start", "end")}
-        skip_mirror = True
-    else:
-        skip_mirror = False
     report.bounds = cobordism_bounds(
         report.s["start"], report.s["end"], mirror_s["start"], mirror_s["end"], surface.euler_characteristic,
         surface.every_component_meets_start, surface.every_component_meets_end,
     )
-    if skip_mirror:
-        report.bounds = [b for b in report.bounds if not b.statement.startswith("mirror")]
     if not report.bounds:
         report.notes.append("some component of the surface meets neither end, so no s-inequality applies")
     # least genus: a connected surface with one knot end and the other end empty or a knot

@@ -169,8 +169,7 @@ def surface_lines(data: dict) -> list[str]:
         lines.append("")
         for end in ("start", "end"):
             values = data["s"].get(end)
-            shown = ("not computed (a link)" if values is None
-                     else ", ".join(f"{v} over {f}" for f, v in values.items()))
+            shown = ", ".join(f"{v} over {f}" for f, v in values.items())
             lines.append(f"s        {end}: {shown}")
         for bound in data["bounds"]:
             verdict = "holds" if bound["holds"] else "FAILS"

@@ -70,8 +70,7 @@ def homology_rows(facts: dict) -> list[tuple[str, str]]:
         rows.append((f"Bar-Natan ({field})", text))
     if "s" in facts:
         s = facts["s"]
-        rows.append(("s", "(for knots; links come from the canonical class)" if s is None
-                     else ", ".join(f"{value} over {field}" for field, value in s.items())))
+        rows.append(("s", ", ".join(f"{value} over {field}" for field, value in s.items())))
     return rows
 
 

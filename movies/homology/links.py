@@ -1,16 +1,14 @@
-"""s of oriented links, where the free part of Bar-Natan homology settles it.
+"""s of oriented links, from the canonical class of the orientation.
 
 Normalised as Beliakova–Wehrli: s(unlink of n) = 1 − n, s(L₁ ⊔ L₂) = s(L₁) + s(L₂) − 1,
-s(∅) = 1. The free part of Bar-Natan homology over F[H] has one generator for each orientation
-of the link; in homological degree 0 sit the given orientation o, its reverse, and the
-orientations that reverse a sublink whose linking number with the rest is zero. When only o
-and its reverse are there, the two generators sit at q = s − 1 and s + 1, as for knots. A split
-diagram is cut into its pieces first (the disjoint-union formula), so unlinks and split unions
-of knots are covered too.
+s(∅) = 1. A split diagram is cut into its pieces first (the disjoint-union formula); a
+crossingless circle is an unknot (s = 0); every other piece gets s from its canonical class
+(:mod:`movies.homology.canonical`), which is exact whatever other orientations share homological
+degree 0 with the given one.
 
-What is not covered yet: a non-split piece with more than two free generators in degree 0
-(a sublink of linking number zero with the rest, e.g. the Whitehead link); there
-:class:`SNotComputedError` says so. That case needs the canonical class itself.
+:func:`free_part_s` is the older route kept as a cross-check: when only the orientation and its
+reverse sit in homological degree 0, the two free generators of Bar-Natan homology there sit
+at q = s − 1 and s + 1, as for knots.
 
 >>> from movies.diagram.constructors import unlink
 >>> from movies.diagram.pd import from_pd
@@ -21,14 +19,13 @@ What is not covered yet: a non-split piece with more than two free generators in
 from __future__ import annotations
 
 from movies.diagram.model import Diagram, assemble
-from movies.homology.errors import FieldError, HomologyError
+from movies.homology.canonical import canonical_complex, s_from_canonical
+from movies.homology.errors import FieldError
 from movies.homology.graded import bar_natan_module
 from movies.homology.khovanov import bar_natan_complex
 from movies.homology.rings import parse_field
 
-
-class SNotComputedError(HomologyError):
-    """s of this link needs the canonical class, which this version does not compute."""
+__all__ = ["link_s", "link_s_values", "free_part_s", "split_pieces"]
 
 
 def split_pieces(diagram: Diagram) -> list[Diagram]:
@@ -47,19 +44,56 @@ def split_pieces(diagram: Diagram) -> list[Diagram]:
     return result
 
 
-def _piece_s(piece: Diagram, p: int) -> int:
-    final = bar_natan_complex(piece, "Z")
-    free = bar_natan_module(final, p, degrees={0})["free"]
+def free_part_s(piece: Diagram, field: str = "Q") -> int | None:
+    """s from the free part of Bar-Natan homology in degree 0, when that settles it.
+
+    Returns None when more than two free generators sit in degree 0 (a sublink with linking
+    number zero to the rest): their degrees alone cannot tell which class is the given one.
+
+    >>> from movies.language.spec import parse_diagram
+    >>> free_part_s(parse_diagram("L2a1{1}")), free_part_s(parse_diagram("L5a1{0}"))
+    (1, None)
+    """
+    p = parse_field(field).p
+    free = bar_natan_module(bar_natan_complex(piece, "Z"), p, degrees={0})["free"]
     degrees = sorted(q for (h, q), rank in free.items() if h == 0 for _ in range(rank))
     if len(degrees) == 2 and degrees[1] - degrees[0] == 2:
         return degrees[0] + 1
-    if len(degrees) == 2:  # pragma: no cover - would contradict the structure of the free part
-        raise HomologyError(f"internal error: free generators in degree 0 at q = {degrees}, not s - 1 and s + 1")
-    raise SNotComputedError(
-        f"s of this link is not computed yet: {len(degrees)} orientations share homological degree 0 "
-        "(a sublink has linking number zero with the rest), and telling their classes apart needs "
-        "the canonical class"
-    )
+    return None
+
+
+def link_s_values(diagram: Diagram, fields=("Q",)) -> dict[str, int]:
+    """s of an oriented link over several fields, from one scan over Z per split piece.
+
+    Parameters
+    ----------
+    diagram : Diagram
+        Any diagram; the empty one has s = 1.
+    fields : iterable of str
+        "Q", "F2", "F3", ...
+
+    Returns
+    -------
+    dict
+        field -> s, normalised as Beliakova–Wehrli.
+
+    >>> from movies.language.spec import parse_diagram
+    >>> link_s_values(parse_diagram("L5a1{0}"), ("Q", "F2"))
+    {'Q': -1, 'F2': -1}
+    """
+    fields = list(fields)
+    for name in fields:
+        if parse_field(name).name == "Z":
+            raise FieldError("s is defined over a field: use 'Q' or 'F<p>'")
+    pieces = split_pieces(diagram) if not diagram.is_empty() else []
+    totals = {name: 1 - len(pieces) for name in fields}
+    for piece in pieces:
+        if not piece.crossings:  # a crossingless circle: an unknot, s = 0
+            continue
+        canonical = canonical_complex(piece)
+        for name in fields:
+            totals[name] += s_from_canonical(canonical, name)
+    return totals
 
 
 def link_s(diagram: Diagram, field: str = "Q") -> int:
@@ -76,15 +110,8 @@ def link_s(diagram: Diagram, field: str = "Q") -> int:
     -------
     int
 
-    Raises
-    ------
-    SNotComputedError
-        For a non-split piece in which several orientations besides the given one and its
-        reverse sit in homological degree 0.
+    >>> from movies.language.spec import parse_diagram
+    >>> link_s(parse_diagram("L5a1{0}")), link_s(parse_diagram("mirror(L5a1{0})"), "F2")
+    (-1, 1)
     """
-    ring = parse_field(field)
-    if ring.name == "Z":
-        raise FieldError("s is defined over a field: use 'Q' or 'F<p>'")
-    p = ring.p
-    pieces = split_pieces(diagram) if not diagram.is_empty() else []
-    return sum(_piece_s(piece, p) for piece in pieces) - (len(pieces) - 1)
+    return link_s_values(diagram, (field,))[field]

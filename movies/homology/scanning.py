@@ -17,9 +17,11 @@ When every crossing is in, the objects are empty matchings: the complex is a com
 graded R[H]-modules (:class:`FinalComplex`), entry ``c`` between ``∅{a}`` and ``∅{b}`` standing
 for ``c·H^((b - a)/2)``.
 
-The elimination keeps the data it needs to move a cycle along (the entries ``γ`` of the removed
-rows, see :meth:`Complex.eliminate`), so a class can later be carried through the homotopy
-equivalences.
+A chain of the closed diagram can ride along (:class:`CarriedClass`): it is stored as a morphism
+from one crossingless tangle into each object, tensored with the next crossing's smoothing as the
+crossings come in, capped where its circles close, and pushed through every elimination by the
+homotopy equivalence (see :meth:`Complex.eliminate`). This is how the canonical class of an
+orientation reaches the final complex (:mod:`movies.homology.canonical`).
 
 >>> final = scan([(1, 5, 2, 4), (3, 1, 4, 6), (5, 3, 6, 2)], RING_Z)
 >>> sorted(final.generators)
@@ -34,7 +36,7 @@ from dataclasses import dataclass, field
 from movies.homology.cobordisms import components, compose_morphisms, expand
 from movies.homology.rings import Ring
 
-__all__ = ["FinalComplex", "Complex", "add_crossing", "scan_complex", "scan", "finish", "RING_Z"]
+__all__ = ["FinalComplex", "CarriedClass", "Complex", "add_crossing", "scan_complex", "scan", "finish", "RING_Z"]
 
 RING_Z = Ring("Z", 0)
 
@@ -54,6 +56,31 @@ class FinalComplex:
 
     generators: list[tuple[int, int]]
     entries: dict[tuple[int, int], int] = field(default_factory=dict)
+    #: carried chains, each ``{generator: coefficient}`` at H = 1 (see :class:`CarriedClass`)
+    carried: list[dict[int, int]] = field(default_factory=list)
+
+
+@dataclass
+class CarriedClass:
+    """A chain carried through the scan: one morphism from ``source`` into each object.
+
+    ``source`` is a crossingless matching of the current boundary with q-shift ``q`` (degree
+    ``h`` before the final shift); ``coords[i]`` is a morphism ``source -> object i``. For each
+    crossing (PD tuple) ``smoothing`` says which of its smoothings the chain uses; when circles of
+    ``source`` close, each is capped by the cup labelled X, or X - H when ``minus_h`` holds an
+    edge label on it (every edge on one circle must give the same answer).
+
+    >>> carried = CarriedClass({(1, 5, 2, 4): 0}, frozenset())
+    >>> carried.source, carried.q, carried.coords
+    ((), 0, {})
+    """
+
+    smoothing: dict
+    minus_h: frozenset
+    source: tuple = ()
+    q: int = 0
+    h: int = 0
+    coords: dict[int, dict] = field(default_factory=dict)
 
 
 class Complex:
@@ -78,6 +105,7 @@ class Complex:
         self.q: dict[int, int] = {}
         self.out: dict[int, dict[int, dict]] = {}
         self.inn: dict[int, dict[int, dict]] = {}
+        self.carried: list[CarriedClass] = []
         self._next = 0
 
     def add_object(self, h: int, m: tuple, q: int) -> int:
@@ -126,6 +154,30 @@ class Complex:
             return None
         return u
 
+    def _carry_through(self, carried: CarriedClass, b1: int, b2: int, inv: int) -> None:
+        coords = carried.coords
+        coords.pop(b1, None)
+        at_b2 = coords.pop(b2, None)
+        if at_b2 is None:
+            return
+        reduce = self.ring.reduce
+        source, mb = carried.source, self.m[b1]
+        for y, gamma in self.out[b1].items():
+            if y == b2:
+                continue
+            comp = compose_morphisms(source, mb, self.m[y], at_b2, gamma)
+            if not comp:
+                continue
+            entry = coords.setdefault(y, {})
+            for k, v in comp.items():
+                v = reduce(entry.get(k, 0) - inv * v)
+                if v:
+                    entry[k] = v
+                else:
+                    entry.pop(k, None)
+            if not entry:
+                del coords[y]
+
     def remove(self, i: int) -> None:
         for j in self.out.pop(i):
             del self.inn[j][i]
@@ -138,12 +190,14 @@ class Complex:
 
         Every entry ``x -> y`` with ``x -> b2`` (δ) and ``b1 -> y`` (γ) becomes
         ``ε - γ u⁻¹ δ``; then ``b1`` and ``b2`` go. Returns the entries that changed (to look
-        for new isomorphisms among them). To carry a cycle through this step one needs, in
-        b2's degree, ``x ↦ x_E - γ u⁻¹ x_b2``: the dicts ``out[b1]`` hold γ until removal.
+        for new isomorphisms among them). Carried chains go along the homotopy equivalence:
+        in b1's degree the b1 coordinate is dropped, in b2's degree ``x ↦ x_E - γ u⁻¹ x_b2``.
         """
         inv = self.ring.inverse(u)
         m = self.m
         mb = m[b1]
+        for carried in self.carried:
+            self._carry_through(carried, b1, b2, inv)
         sources = [(x, d) for x, d in self.inn[b2].items() if x != b1]
         targets = [(y, g) for y, g in self.out[b1].items() if y != b2]
         changed = []
@@ -279,6 +333,39 @@ class _Step:
         found = (tuple(new), closed)
         self._objects[key] = found
         return found
+
+    def closed_circle_labels(self, m: tuple, s: int, boundary: list, crossing: tuple) -> list:
+        """One edge label on each closed circle of ``m`` glued to smoothing ``s``, in the order
+        :meth:`horizontal` numbers the source circles (by smallest point)."""
+        arc = self._arcs(m, s)
+        link = self.link
+        visited = [False] * len(arc)
+        for start in range(len(arc)):  # mark the open strands
+            if link[start] >= 0 or visited[start]:
+                continue
+            p = start
+            while True:
+                visited[p] = True
+                p = arc[p]
+                visited[p] = True
+                if link[p] < 0:
+                    break
+                p = link[p]
+        lowest = []
+        for start in range(len(arc)):
+            if visited[start]:
+                continue
+            p, low = start, start
+            while not visited[p]:
+                visited[p] = True
+                p = arc[p]
+                visited[p] = True
+                low = min(low, p)
+                p = link[p]
+                low = min(low, p)
+            lowest.append(low)
+        n = self.n
+        return [boundary[p] if p < n else crossing[p - n] for p in sorted(lowest)]
 
     # --------------------------------------------------------------- morphisms
     def _geometry(self, top: list, bot: list, piece: list, pieces: int):
@@ -461,22 +548,61 @@ def add_crossing(cx: Complex, boundary: list, crossing: tuple) -> tuple[Complex,
         s0, s1 = ids[(i, 0)], ids[(i, 1)]
         for (a, b), piece in step.vertical(cx.m[i]).items():
             new.add_to(s0 + a, s1 + b, piece, sign)
+    for carried in cx.carried:
+        new.carried.append(_carry_across(carried, cx, new, step, ids, boundary, crossing))
     new.simplify()
     return new, step.new_boundary
 
 
-def scan_complex(pd, ring: Ring, order, progress=None) -> Complex:
+def _carry_across(carried: CarriedClass, cx: Complex, new: Complex, step: _Step, ids: dict,
+                  boundary: list, crossing: tuple) -> CarriedClass:
+    """The carried chain tensored with its smoothing of ``crossing``, its closed circles capped."""
+    s = carried.smoothing[crossing]
+    source, closed = step.obj(carried.source, s)
+    minus_h = [label in carried.minus_h for label in step.closed_circle_labels(carried.source, s, boundary, crossing)]
+    full = (1 << closed) - 1
+
+    def weight(config: int) -> int:
+        # X is the dotted cup (config bit set); X - H is the dotted cup minus H times the cup
+        w = 1
+        for k in range(closed):
+            if not config >> k & 1:
+                if not minus_h[k]:
+                    return 0
+                w = -w
+        return w
+
+    coords: dict[int, dict] = {}
+    reduce = cx.ring.reduce
+    for i, morphism in carried.coords.items():
+        first = ids[(i, s)]
+        for pattern, c in morphism.items():
+            for (a, b), piece in step.horizontal(carried.source, cx.m[i], pattern, s).items():
+                w = weight(a & full) if closed else 1
+                if not w:
+                    continue
+                entry = coords.setdefault(first + b, {})
+                for k, v in piece.items():
+                    entry[k] = entry.get(k, 0) + w * c * v
+    coords = {i: e for i, e in ((i, {k: reduce(v) for k, v in e.items() if reduce(v)}) for i, e in coords.items()) if e}
+    return CarriedClass(carried.smoothing, carried.minus_h, source, carried.q + s - closed, carried.h + s, coords)
+
+
+def scan_complex(pd, ring: Ring, order, progress=None, carried=()) -> Complex:
     """The simplified complex of a PD code whose crossings are added in ``order``.
 
     Parameters: ``pd``, a list of PD 4-tuples (labels that occur once stay on the boundary);
-    ``ring``; ``order``, crossing indices; ``progress(done, total)``, called after each crossing.
+    ``ring``; ``order``, crossing indices; ``progress(done, total)``, called after each crossing;
+    ``carried``, :class:`CarriedClass` chains to take along (they start on the one object).
     Returns the :class:`Complex` of the resulting tangle.
 
     >>> scan_complex([(1, 5, 2, 4), (3, 1, 4, 6), (5, 3, 6, 2)], RING_Z, [0, 1, 2]).size()
     6
     """
     cx = Complex(ring)
-    cx.add_object(0, (), 0)
+    start = cx.add_object(0, (), 0)
+    for chain in carried:
+        cx.carried.append(CarriedClass(chain.smoothing, chain.minus_h, coords={start: {0: 1}}))
     boundary: list = []
     for done, index in enumerate(order, start=1):
         cx, boundary = add_crossing(cx, boundary, pd[index])
@@ -523,7 +649,7 @@ def finish(cx: Complex, n_plus: int, n_minus: int, without_h: bool = False) -> F
 
     >>> cx = Complex(RING_Z); _ = cx.add_object(0, (), 1)
     >>> finish(cx, 1, 0)
-    FinalComplex(generators=[(0, 2)], entries={})
+    FinalComplex(generators=[(0, 2)], entries={}, carried=[])
     """
     index = {}
     gens = []
@@ -536,4 +662,6 @@ def finish(cx: Complex, n_plus: int, n_minus: int, without_h: bool = False) -> F
             c = morphism.get(0, 0)  # the undotted sheet
             if c and (not without_h or cx.q[i] == cx.q[j]):
                 entries[(index[i], index[j])] = c
-    return FinalComplex(gens, entries)
+    carried = [{index[i]: morphism.get(0, 0) for i, morphism in chain.coords.items() if morphism.get(0, 0)}
+               for chain in cx.carried]
+    return FinalComplex(gens, entries, carried)

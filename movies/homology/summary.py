@@ -16,7 +16,9 @@ from typing import Callable, Sequence
 
 from movies.diagram.model import Diagram
 from movies.homology.graded import bar_natan_module, khovanov_integral, khovanov_ranks
-from movies.homology.khovanov import bar_natan_complex, khovanov_homology, s_from_complex
+from movies.homology.canonical import canonical_complex, s_from_canonical
+from movies.homology.khovanov import bar_natan_complex, khovanov_homology
+from movies.homology.links import link_s_values
 from movies.homology.rings import parse_field
 
 
@@ -49,11 +51,18 @@ def homology_summary(
     -------
     dict
         ``khovanov`` {field: [[i, j, rank], ...]}, ``khovanov_Z`` {"free": [[i, j, rank]],
-        "torsion": [[i, j, order, count]]}, ``s`` {field: int} (None for links: s of links is
-        computed from the canonical class), and ``reduced_khovanov`` / ``bar_natan`` when asked.
+        "torsion": [[i, j, order, count]]}, ``s`` {field: int} (of the link with its orientation,
+        Beliakova–Wehrli normalisation), and ``reduced_khovanov`` / ``bar_natan`` when asked.
     """
     rings = [parse_field(f) for f in fields]
-    final = bar_natan_complex(diagram, "Z", progress)
+    if diagram.crossings and diagram.piece_count() == 1:
+        # one scan carries the canonical class along: it gives the complex and s at once
+        canonical = canonical_complex(diagram, progress)
+        final = canonical.final
+        s = {ring.name: s_from_canonical(canonical, ring.name) for ring in rings}
+    else:
+        final = bar_natan_complex(diagram, "Z", progress)
+        s = link_s_values(diagram, [ring.name for ring in rings])
     integral = khovanov_integral(final)
     result: dict = {
         "khovanov": {ring.name: _triples(khovanov_ranks(final, ring.p)) for ring in rings},
@@ -62,8 +71,7 @@ def homology_summary(
             "torsion": [[i, j, order, count] for (i, j), orders in sorted(integral["torsion"].items())
                         for order, count in sorted(orders.items())],
         },
-        "s": ({ring.name: s_from_complex(final, ring.p) for ring in rings}
-              if diagram.component_count() == 1 else None),
+        "s": s,
     }
     if reduced:
         basepoint = min(diagram.edges())
