@@ -56,9 +56,9 @@ def test_a_disk_for_the_trefoil_is_refuted(capsys):
     assert main(["bounds", "3_1", "--to", "empty", "--json"]) == 0
     data = json.loads(capsys.readouterr().out)
     # Rasmussen 2010: s(3_1) = 2 > 0 rules out a slice disk
-    assert data["allowed_by_s"] is False
+    assert data["allowed_connected"] is False and data["allowed_by_s_and_signatures"] is False
     assert main(["bounds", "8_20", "--to", "empty", "--json"]) == 0
-    assert json.loads(capsys.readouterr().out)["allowed_by_s"] is True
+    assert json.loads(capsys.readouterr().out)["allowed_connected"] is True
 
 
 def test_a_violation_in_a_verified_movie_is_an_internal_error(monkeypatch, capsys, tmp_path):

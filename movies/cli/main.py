@@ -97,12 +97,15 @@ def build_parser() -> argparse.ArgumentParser:
         "bounds",
         help="what s and the signatures say: 4-ball genus of a knot, or cobordisms between two links",
         description="With one diagram: lower bounds for the 4-ball genus of a knot and the invariant that "
-        "gives the best one. With --to: whether an oriented cobordism of the given genus from the first "
-        "diagram to the second can exist, according to s over Q and F2.",
+        "gives the best one. With --to: whether an oriented cobordism of the given total genus from the first "
+        "diagram to the second can exist, connected or with several components each meeting both ends, "
+        "according to s over Q and F2 and (for knots) the signatures.",
     )
     bnd.add_argument("spec", metavar="SPEC", help="the (first) diagram")
     bnd.add_argument("--to", metavar="SPEC", help="the other end of a cobordism ('empty' for the 4-ball)")
-    bnd.add_argument("--genus", type=int, metavar="G", default=0, help="genus of the connected cobordism asked about")
+    bnd.add_argument("--genus", type=int, metavar="G", default=0, help="total genus of the cobordism asked about (default 0)")
+    bnd.add_argument("--components", type=int, metavar="N", default=None,
+                     help="ask about N components only (default: every number from 1, connected, upwards)")
     bnd.add_argument("--json", action="store_true", help="print one JSON object")
     bnd.set_defaults(run=_run_bounds)
 
@@ -284,8 +287,10 @@ def _run_frames(args: argparse.Namespace) -> int:
 
 
 def _run_bounds(args: argparse.Namespace) -> int:
-    from movies.bounds.inequalities import best_genus_bound, cobordism_bounds
-    from movies.bounds.verdicts import knot_genus_bounds, mirror_s_values, s_values
+    from movies.bounds.inequalities import best_genus_bound
+    from movies.bounds.questions import cobordism_question
+    from movies.bounds.verdicts import knot_genus_bounds
+    from movies.cli.render import cobordism_lines
     from movies.language.spec import parse_diagram
 
     first = parse_diagram(args.spec)
@@ -305,22 +310,19 @@ def _run_bounds(args: argparse.Namespace) -> int:
         if args.genus < 0:
             raise InputError("--genus is 0 or more")
         second = parse_diagram(args.to)
-        s1, s2 = s_values(first), s_values(second)
-        mirror1 = mirror_s_values(first, s1) if s1 is not None else None
-        mirror2 = mirror_s_values(second, s2) if s2 is not None else None
-        if None in (s1, s2, mirror1, mirror2):
-            raise InputError("s of a link in which a sublink has linking number zero with the rest is not "
-                             "computed yet")
-        boundary = first.component_count() + second.component_count()
-        euler = 2 - 2 * args.genus - boundary
-        bounds = cobordism_bounds(s1, s2, mirror1, mirror2, euler, not first.is_empty(), not second.is_empty())
-        possible = all(b.holds for b in bounds)
-        data.update({"to": args.to, "genus": args.genus, "euler_characteristic": euler, "s": {"first": s1, "second": s2},
-                     "bounds": [b.as_json() for b in bounds], "allowed_by_s": possible})
-        lines.append(f"  to {args.to}, connected, genus {args.genus} (Euler characteristic {euler})")
-        lines.append(f"  s: {s1} and {s2}")
-        lines += [f"  {b.statement}: {b.lhs} >= {b.rhs} {'holds' if b.holds else 'FAILS'}" for b in bounds]
-        lines.append("  s allows such a cobordism" if possible else "  no such cobordism exists: s forbids it")
+        if first.is_empty() and second.is_empty():
+            raise InputError("both ends are empty: there is no cobordism to ask about")
+        try:
+            answer = cobordism_question(first, second, args.genus, args.components)
+        except ValueError as err:
+            raise InputError(f"--components: {err}") from None
+        data.update({
+            "to": args.to, "genus": args.genus, "s": answer.s, "mirror_s": answer.mirror_s,
+            "cobordisms": [shape.as_json() for shape in answer.shapes],
+            "allowed_connected": answer.allowed_connected if answer.shapes[0].components == 1 else None,
+            "allowed_by_s_and_signatures": answer.allowed_some, "notes": answer.notes,
+        })
+        lines += cobordism_lines(args.to, answer)
     print(json.dumps(data) if args.json else "\n".join(lines))
     return EXIT_OK
 

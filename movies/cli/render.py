@@ -100,3 +100,21 @@ def invariants_text(label: str, facts: dict) -> str:
     return "\n".join([label] + [f"  {name:<16} {value}" for name, value in rows])
 
 
+
+
+def cobordism_lines(label: str, answer) -> list[str]:
+    """The readable answer of ``movies bounds A --to B``: one block per number of components."""
+    lines = [f"  s: first {_fields(answer.s['first'])}; second {_fields(answer.s['second'])}",
+             f"  s of the mirrors: first {_fields(answer.mirror_s['first'])}; "
+             f"second {_fields(answer.mirror_s['second'])}"]
+    for shape in answer.shapes:
+        what = "connected" if shape.components == 1 else f"{shape.components} components, each meeting both ends"
+        lines.append(f"  to {label}, {what}, total genus {answer.genus} (Euler characteristic {shape.euler_characteristic})")
+        lines += [f"    {b.statement}: {b.lhs} >= {b.rhs} {'holds' if b.holds else 'FAILS'}" for b in shape.bounds]
+        lines.append("    allowed by these invariants" if shape.allowed else "    no such cobordism exists")
+    lines += [f"  note: {note}" for note in answer.notes]
+    return lines
+
+
+def _fields(values: dict) -> str:
+    return ", ".join(f"{v} over {f}" for f, v in values.items())

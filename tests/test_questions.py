@@ -1,0 +1,64 @@
+"""Questions without a movie: which cobordisms s and the signatures allow."""
+
+import json
+
+import pytest
+
+from movies.bounds.questions import cobordism_question, signature_profile
+from movies.cli.main import main
+from movies.language.spec import parse_diagram
+
+
+def test_two_annuli_cannot_join_the_unlink_to_the_hopf_link():
+    answer = cobordism_question(parse_diagram("unlink(2)"), parse_diagram("L2a1{1}"), genus=0)
+    # Beliakova–Wehrli 2008: s(unlink of 2) = -1; from memory: a positive diagram has s = w - O + 1 = 1
+    assert answer.s == {"first": {"Q": -1, "F2": -1}, "second": {"Q": 1, "F2": 1}}
+    connected, annuli = answer.shapes
+    assert (connected.components, connected.euler_characteristic, connected.allowed) == (1, -2, True)
+    assert (annuli.components, annuli.euler_characteristic, annuli.allowed) == (2, 0, False)
+    assert any("meets the end" in statement for statement in annuli.refuted_by)
+    assert answer.allowed_some and answer.notes  # links: the signatures are not asked, and it says so
+
+
+@pytest.mark.parametrize("first, second, genus, allowed", [
+    ("torus(3,4)", "3_1", 1, False),
+    ("torus(3,4)", "3_1", 2, True),
+    ("torus(2,5)", "3_1", 1, True),
+    ("3_1", "mirror(3_1)", 1, False),
+    ("3_1", "mirror(3_1)", 2, True),
+    ("4_1", "empty", 0, True),
+])
+def test_knot_cobordisms(first, second, genus, allowed):
+    answer = cobordism_question(parse_diagram(first), parse_diagram(second), genus)
+    # Rasmussen 2010: |s(K0) - s(K1)| <= 2g for a genus-g cobordism of knots, s(T(p,q)) = (p-1)(q-1)
+    assert answer.allowed_connected is allowed
+    assert [b.field for b in answer.shapes[0].bounds][-1] in ("signature", "Levine–Tristram")
+
+
+def test_signatures_can_refute_where_s_cannot():
+    knot = parse_diagram("9_42")
+    answer = cobordism_question(knot, parse_diagram("empty"), genus=0)
+    # KnotInfo rasmussen_invariant: s(9_42) = 0, so s allows a disk
+    assert all(b.holds for b in answer.shapes[0].bounds if b.field in ("Q", "F2"))
+    # KnotInfo signature: sigma(9_42) = 2; Murasugi 1965: |sigma| <= 2 g4, so no disk
+    assert signature_profile(knot)["1/2"] == 2
+    assert not answer.allowed_connected and answer.shapes[0].refuted_by[0].startswith("signature")
+
+
+def test_levine_tristram_profile_keys_are_prime_power_orders():
+    profile = signature_profile(parse_diagram("5_1"))
+    assert "1/2" in profile and "1/3" in profile and "1/6" not in profile
+    # KnotInfo signature: 5_1 has signature -4
+    assert profile["1/2"] == -4
+
+
+def test_components_option(capsys):
+    assert main(["bounds", "unlink(2)", "--to", "L2a1{1}", "--components", "2", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert [c["components"] for c in data["cobordisms"]] == [2]
+    assert data["allowed_connected"] is None and data["allowed_by_s_and_signatures"] is False
+    assert main(["bounds", "unlink(2)", "--to", "L2a1{1}", "--components", "3"]) == 2
+    assert "1 to 2 components" in capsys.readouterr().err
+    assert main(["bounds", "empty", "--to", "empty"]) == 2
+    assert main(["bounds", "3_1", "--to", "4_1", "--genus", "1"]) == 0
+    assert "allowed by these invariants" in capsys.readouterr().out
