@@ -87,3 +87,20 @@ def test_hopf_link_end_is_judged():
     # positive Hopf link: s = w - O + 1 = 1 for a positive diagram (from memory)
     assert result.bounds.s["start"] == {"Q": 1, "F2": 1}
     assert result.bounds.bounds and all(b.holds for b in result.bounds.bounds)
+
+
+FORMS = ["every component meets the start: s(end) - s(start)", "every component meets the end: s(start) - s(end)",
+         "mirror movie, every component meets the start", "mirror movie, every component meets the end"]
+
+
+@pytest.mark.parametrize("mirrored", [False, True])
+def test_each_inequality_is_tight_on_a_hand_checked_movie(mirrored):
+    text = open("examples/movies/5_2-to-5_1-genus-one.movie").read()
+    if mirrored:
+        text = text.replace("start 5_2", "start mirror(5_2)").replace("isotopic to 5_1", "isotopic to mirror(5_1)")
+    result = check_movie(parse_movie(text))
+    assert result.verdict == "verified"
+    tight = {form for form in FORMS for b in result.bounds.bounds if b.tight and b.statement.startswith(form)}
+    # hand-checked: s(5_2) = 2, s(5_1) = 4 (KnotInfo rasmussen_invariant), chi = -2; mirroring negates s
+    expected = {FORMS[1], FORMS[2]} if not mirrored else {FORMS[0], FORMS[3]}
+    assert tight == expected

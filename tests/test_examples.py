@@ -25,6 +25,7 @@ EXPECTED = {
     "mistake-illegal-move": ("invalid", None, None),
     "mistake-false-checkpoint": ("contradicted", -1, [(0, None, 2, 1)]),
     "mistake-false-isotopy": ("contradicted", -2, [(1, None, 1, 1)]),
+    "mistake-whitehead-disks": ("contradicted", 2, [(0, None, 1, 0), (0, None, 1, 0)]),
 }
 
 
@@ -108,3 +109,15 @@ def test_readme_run_command_works():
     result = subprocess.run([sys.executable, "-m", "movies", "check", str(EXAMPLES / "square-knot-ribbon.movie")],
                             capture_output=True, text=True)
     assert result.returncode == 0 and "VERDICT  verified" in result.stdout
+
+
+def test_the_whitehead_disks_are_ruled_out_by_the_mirror():
+    data = as_json(check_movie(parse_movie((EXAMPLES / "mistake-whitehead-disks.movie").read_text())))
+    claim, surface = data["findings"]
+    assert claim["kind"] == "false" and claim["line"] == 7
+    # the step table says the claim is false, not merely unproved
+    assert data["steps"][0]["note"].startswith("FALSE")
+    # Beliakova–Wehrli 2008: capping L by disks needs s(m(L)) <= 1 - chi; here s(m(L)) = 1 and chi = 2
+    failing = [b for b in data["bounds"] if not b["holds"]]
+    assert failing and all(b["statement"].startswith("mirror movie") and (b["lhs"], b["rhs"]) == (0, 2) for b in failing)
+    assert surface["kind"] == "false" and "line 7" in surface["evidence"]

@@ -92,6 +92,58 @@ def cobordism_bounds(
     return bounds
 
 
+SOURCE_BLOWUPS = ("Q. Ren, 'Lee filtration structure of torus links' (2023), Cor. 1.4: s bounds surfaces "
+                  "in punctured connected sums of CP²-bar")
+
+
+def blown_up_bounds(
+    s_start: dict[str, int],
+    s_end: dict[str, int],
+    s_mirror_start: dict[str, int],
+    s_mirror_end: dict[str, int],
+    euler: int,
+    meets_start: bool,
+    meets_end: bool,
+    turns: set[int],
+    excess: int,
+) -> list[Bound]:
+    """Ren's adjunction inequality in movie form, for a surface through blow-ups.
+
+    ``turns`` holds the signs of the twists (+1: CP²-bar, −1: CP²); ``excess`` is
+    A = Σ(aᵢ² − |aᵢ|). Only +1 twists: s(L₁) ≤ s(L₀) − χ + A when every component meets L₁, and
+    s(m(L₀)) ≤ s(m(L₁)) − χ + A when every component meets L₀. Only −1 twists: the same for the
+    mirror movie (which has only +1 twists). Both signs: none (an empty list).
+
+    >>> [(b.lhs, b.rhs, b.tight) for b in blown_up_bounds({"Q": -1}, {"Q": 1}, {"Q": -1}, {"Q": -1},
+    ...     euler=0, meets_start=True, meets_end=True, turns={1}, excess=2)]
+    [(0, 0, True), (2, 0, False)]
+    """
+    if turns != {1} and turns != {-1}:
+        return []
+    bounds: list[Bound] = []
+    plus = turns == {1}
+    for field in s_start:
+        a, b = s_start[field], s_end[field]
+        ma, mb = s_mirror_start[field], s_mirror_end[field]
+        if meets_end:
+            if plus:
+                bounds.append(Bound(f"+1 twists, every component meets the end: s(start) - s(end) + A >= chi  [{field}]",
+                                    a - b + excess, euler, field, SOURCE_BLOWUPS))
+            else:
+                bounds.append(Bound(f"-1 twists (mirror movie), every component meets the end: "
+                                    f"s(m start) - s(m end) + A >= chi  [{field}]", ma - mb + excess, euler, field,
+                                    SOURCE_BLOWUPS))
+        if meets_start:
+            if plus:
+                bounds.append(Bound(f"+1 twists, every component meets the start: s(m end) - s(m start) + A >= chi  [{field}]",
+                                    mb - ma + excess, euler, field, SOURCE_BLOWUPS))
+            else:
+                bounds.append(Bound(f"-1 twists (mirror movie), every component meets the start: "
+                                    f"s(end) - s(start) + A >= chi  [{field}]", b - a + excess, euler, field,
+                                    SOURCE_BLOWUPS))
+    return bounds
+
+
 @dataclass(frozen=True)
 class GenusBound:
     """A lower bound for the 4-ball genus of a knot, and the invariant that gives it."""

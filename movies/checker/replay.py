@@ -29,6 +29,9 @@ from movies.invariants.signature import signature
 from movies.language.movie import MOVE_KINDS, Movie, Statement
 from movies.surface.tracker import Surface, Transition, identity_transition, surface_of
 
+#: how a step note begins when the step is a claim shown false
+REFUTED = "FALSE"
+
 #: the four verdicts, best first
 VERIFIED, CONDITIONAL, CONTRADICTED, INVALID = "verified", "conditional", "contradicted", "invalid"
 
@@ -140,9 +143,25 @@ def _apply_move(diagram: Diagram, statement: Statement) -> tuple[Diagram, Transi
     elif kind == "death":
         new = moves.death(diagram, a["component"])
         return new, Transition("death", ended=(a["component"],), deaths=1), f"component {a['component']} dies"
+    elif kind == "twist":
+        result = moves.twist(diagram, a["edges"], a["turns"], a["start_face"], names=chosen)
+        gate = tuple((diagram.component_of(edge), d) for edge, d in zip(a["edges"], result.directions))
+        transition = Transition("twist", links=tuple((k, k, True) for k in sorted(diagram.components)),
+                                turns=a["turns"], gate=gate)
+        return result.diagram, transition, twist_note(a["turns"], len(a["edges"]), result.algebraic)
     else:  # pragma: no cover - the language has no other moves
         raise AssertionError(kind)
     return new, identity_transition(kind, sorted(diagram.components)), ""
+
+
+def twist_note(turns: int, strands: int, algebraic: int) -> str:
+    """What a twist step says in the report.
+
+    >>> twist_note(+1, 2, 0)
+    'a right-handed full twist on 2 strands (algebraic 0): through a CP²-bar summand'
+    """
+    hand, summand = ("right", "CP²-bar") if turns > 0 else ("left", "CP²")
+    return f"a {hand}-handed full twist on {strands} strands (algebraic {algebraic}): through a {summand} summand"
 
 
 def band_transition(result: moves.SaddleResult) -> Transition:
@@ -298,6 +317,8 @@ class _Replay:
                                      started=tuple(given.components)), False, "refuted", ()
         pairs = zip(sorted(self.frame.components), sorted(given.components))
         note = "components matched in order of their names"
+        if difference is not None:
+            note = f"{REFUTED}: they differ in {difference}; the movie goes on from the claimed diagram, {note}"
         return given, Transition("isotopic", links=tuple((a, b, True) for a, b in pairs)), False, note, ()
 
     # -------------------------------------------------------------- checkpoints

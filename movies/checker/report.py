@@ -9,7 +9,7 @@
 
 from __future__ import annotations
 
-from movies.checker.replay import VERDICT_MEANING, CheckResult
+from movies.checker.replay import REFUTED, VERDICT_MEANING, CheckResult
 
 
 def _frame(diagram) -> dict:
@@ -17,13 +17,26 @@ def _frame(diagram) -> dict:
 
 
 def where_it_lives(result: CheckResult) -> str:
-    """S³ × I, B⁴ (one end empty) or S⁴ (both empty)."""
+    """S³ × I, B⁴ (one end empty) or S⁴ (both empty), connected-summed with a CP²-bar for each
+    +1 twist and a CP² for each −1 twist, in the order of the steps."""
     empty = [result.movie.start.is_empty(), result.frames[-1].is_empty()]
-    if all(empty):
-        return "S^4"
-    if any(empty):
-        return "B^4"
-    return "S^3 x I"
+    base = "S^4" if all(empty) else "B^4" if any(empty) else "S^3 x I"
+    blowups = result.surface.blowups if result.surface is not None else ()
+    return " # ".join([base] + ["CP^2-bar" if b.turns > 0 else "CP^2" for b in blowups])
+
+
+def homology_class(blowups) -> dict:
+    """The class of the surface in the blow-ups: (a₁, …, a_k), its square, null-homologous or not.
+
+    The square is −Σaᵢ² over the CP²-bar summands plus Σaᵢ² over the CP² summands.
+
+    >>> from movies.surface.tracker import Blowup
+    >>> homology_class([Blowup(0, +1, 2, 2), Blowup(3, -1, 1, 3)])
+    {'class': [2, 1], 'square': -3, 'null_homologous': False}
+    """
+    entries = [b.algebraic for b in blowups]
+    square = sum(-(b.algebraic ** 2) if b.turns > 0 else b.algebraic ** 2 for b in blowups)
+    return {"class": entries, "square": square, "null_homologous": not any(entries)}
 
 
 def as_json(result: CheckResult) -> dict:
@@ -67,6 +80,9 @@ def as_json(result: CheckResult) -> dict:
     if s is not None:
         data["surface"] = {
             "lives_in": where_it_lives(result),
+            "blowups": [{"step": b.step + 1, "summand": "CP^2-bar" if b.turns > 0 else "CP^2", "turns": b.turns,
+                         "strands": b.strands, "algebraic": b.algebraic} for b in s.blowups],
+            **homology_class(s.blowups),
             "euler_characteristic": s.euler_characteristic,
             "births": s.births, "saddles": s.saddles, "deaths": s.deaths,
             "orientable": s.orientable,
@@ -99,13 +115,24 @@ def plural(count: int, word: str) -> str:
     return f"{count} {word}" + ("" if count == 1 else "s")
 
 
+def step_note(step: dict) -> str:
+    """The note of a step as the reports show it: uncertified steps are marked.
+
+    >>> step_note({"certified": False, "note": "the search did not reach 0 crossings"})
+    'UNPROVED: the search did not reach 0 crossings'
+    """
+    if step["certified"] or step["note"].startswith(REFUTED):
+        return step["note"]
+    return f"UNPROVED: {step['note']}"
+
+
 def as_text(data: dict, source: str) -> str:
     """The readable report of ``movies check``, from :func:`as_json` data."""
     lines = [f"movie  {data['title'] or '(untitled)'}   [{source}]", ""]
     table = [("step", "line", "move", "crossings", "components", "")]
     table.append(("0", "", "start", str(data["start"]["crossings"]), str(data["start"]["components"]), ""))
     for step in data["steps"]:
-        note = step["note"] if step["certified"] else f"UNPROVED: {step['note']}"
+        note = step_note(step)
         table.append((str(step["step"]), str(step["line"]), step["move"], str(step["crossings"]),
                       str(step["components"]), note))
     widths = [max(len(row[i]) for row in table) for i in range(5)]
@@ -153,6 +180,10 @@ def surface_lines(data: dict) -> list[str]:
         if not s["orientable"] and s["orientation_broken_at_step"]:
             orient += f" (step {s['orientation_broken_at_step']} breaks the orientation)"
         lines.append(f"         {orient}")
+        if s["blowups"]:
+            entries = ", ".join(map(str, s["class"]))
+            lines.append(f"         class ({entries}) in the blow-ups, square {s['square']}: "
+                         + ("null-homologous" if s["null_homologous"] else "not null-homologous"))
         for index, c in enumerate(s["components"], start=1):
             shape = f"genus {c['genus']}" if c["orientable"] else plural(c["crosscaps"], "crosscap")
             lines.append(

@@ -367,6 +367,10 @@ def main(argv: Sequence[str] | None = None) -> int:
     except KeyboardInterrupt:
         print("movies: interrupted", file=sys.stderr)
         return EXIT_INTERRUPTED
+    except BrokenPipeError:  # the reader went away (e.g. `| head`): nothing is wrong with the input
+        sys.stderr.close()
+        os.dup2(os.open(os.devnull, os.O_WRONLY), sys.stdout.fileno())
+        return EXIT_OK
     except Exception as err:  # a bug: say so in one line, the traceback only on request
         if os.environ.get("MOVIES_DEBUG"):
             raise

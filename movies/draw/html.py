@@ -18,7 +18,7 @@ from __future__ import annotations
 from html import escape
 
 from movies.checker.replay import CheckResult
-from movies.checker.report import plural, as_json, finding_lines, surface_lines
+from movies.checker.report import plural, as_json, finding_lines, step_note, surface_lines
 from movies.draw.places import place_of
 from movies.draw.svg import diagram_svg
 
@@ -59,7 +59,9 @@ def _step_table(data: dict) -> list[str]:
            f'<tr><td class="mv-num">0</td><td></td><td>start</td><td class="mv-num">{data["start"]["crossings"]}</td>'
            f'<td class="mv-num">{data["start"]["components"]}</td><td></td></tr>']
     for step in data["steps"]:
-        note = escape(step["note"]) if step["certified"] else f'<span class="mv-unproved">UNPROVED:</span> {escape(step["note"])}'
+        note = escape(step_note(step))
+        if note != escape(step["note"]):
+            note = f'<span class="mv-unproved">UNPROVED:</span> {escape(step["note"])}'
         out.append(f'<tr><td class="mv-num">{step["step"]}</td><td class="mv-num">{step["line"]}</td>'
                    f'<td><code>{escape(step["move"])}</code></td><td class="mv-num">{step["crossings"]}</td>'
                    f'<td class="mv-num">{step["components"]}</td><td>{note}</td></tr>')
@@ -86,7 +88,7 @@ def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
                    f"</figcaption>{svg}</figure>")
         if statement is not None and number in records:
             step = records[number]
-            note = step["note"] if step["certified"] else f"UNPROVED: {step['note']}"
+            note = step_note(step)
             found = ""
             if step["found_moves"]:
                 found = "<br>moves found: " + ", ".join(f"<code>{escape(m)}</code>" for m in step["found_moves"])

@@ -14,6 +14,8 @@ usually has them (the full reference is ``grammar/README.md``, "Writing a movie"
 ``R3 face G``                      move a strand across the triangle G
 ``birth [cw] in face G``           a new circle in face G (counterclockwise unless ``cw``)
 ``death K``                        cap off component K, a crossingless circle
+``twist +1|-1 across E F ...``     a full twist on the strands a gate crosses (edges E, F, ... in
+                                   order; ``from face G`` where the gate starts, when needed)
 ``simplify [to TARGET]``           let the checker find Reidemeister moves (TARGET: ``crossingless``,
                                    ``N crossings`` or a diagram)
 ``isotopic to DIAGRAM``            claim the frame is isotopic to DIAGRAM; go on from DIAGRAM
@@ -58,12 +60,12 @@ __all__ = ["Statement", "Movie", "MovieSyntaxError", "MovieInputError", "parse_m
 
 #: the words a statement can start with
 STATEMENT_WORDS = (
-    "title", "start", "band", "R1", "R2", "R3", "birth", "death", "simplify", "isotopic",
+    "title", "start", "band", "R1", "R2", "R3", "birth", "death", "twist", "simplify", "isotopic",
     "expect", "surface", "budget",
 )
 
 #: statements that change the frame
-MOVE_KINDS = ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "simplify", "isotopic")
+MOVE_KINDS = ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "twist", "simplify", "isotopic")
 
 
 class MovieSyntaxError(Located, InputError):
@@ -148,6 +150,10 @@ _EXAMPLES: dict[str, list[str]] = {
     ],
     "a band joins two edges: 'band EDGE EDGE [in face FACE]'": ["start unknot\nband 3", "start unknot\nband"],
     "death takes the component that dies: 'death COMPONENT'": ["start unknot\ndeath", "start unknot\ndeath face 2"],
+    "a twist is 'twist +1 across EDGE EDGE ... [from face FACE]' (or -1 for a left-handed twist)": [
+        "start unknot\ntwist 1 across 3 4", "start unknot\ntwist +2 across 3 4", "start unknot\ntwist +1 3 4",
+        "start unknot\ntwist across 3 4", "start unknot\ntwist +1 across", "start unknot\ntwist +1 across 3 4 from 2",
+    ],
     "after 'expect': components N, crossings N, crossingless, unlink, isotopic to DIAGRAM, "
     "or signature/writhe/determinant/jones/alexander and a value": [
         "start unknot\nexpect", "start unknot\nexpect genus 1", "start unknot\nexpect knot 3_1",
@@ -267,6 +273,9 @@ def _statement(text: str, tree: Tree) -> Statement:
         return make("birth", counterclockwise=c[0] is None or str(c[0]) == "ccw", face=_face(c[1]), names=_names(c[2]))
     if kind == "death":
         return make("death", component=int(c[0]))
+    if kind == "twist":
+        return make("twist", turns=+1 if str(c[0]) == "+1" else -1, edges=tuple(int(t) for t in c[1].children),
+                    start_face=_face(c[2]), names=_names(c[3]))
     if kind == "simplify":
         return make("simplify", **_target(text, c[0]))
     if kind == "isotopic":

@@ -36,7 +36,9 @@ class Transition:
     not named in ``links`` or ``ended`` continues unchanged); ``started``:
     components that appear (births); ``ended``: components that disappear (deaths);
     ``twisted``: components that a band twists (the surface is not orientable there);
-    ``births``, ``deaths``, ``saddles``: the Morse points the step adds.
+    ``births``, ``deaths``, ``saddles``: the Morse points the step adds; ``turns`` (+1 or −1)
+    and ``gate`` ((component, direction ±1) per strand) for a twist step, which takes the
+    surface through a blow-up.
     """
 
     kind: str
@@ -47,6 +49,23 @@ class Transition:
     births: int = 0
     deaths: int = 0
     saddles: int = 0
+    turns: int = 0
+    gate: tuple[tuple[int, int], ...] = ()
+
+
+@dataclass(frozen=True)
+class Blowup:
+    """One twist step: a CP²-bar summand for a +1 twist, a CP² summand for a −1 twist.
+
+    ``algebraic`` is the surface's entry aᵢ of the class there: the strands through the gate
+    counted with sign, each by the orientation the surface gives it (the start's orientation
+    where the surface meets the start, the end's where it meets only the end).
+    """
+
+    step: int  # index into the transitions
+    turns: int
+    algebraic: int
+    strands: int
 
 
 def identity_transition(kind: str, components: Sequence[int]) -> Transition:
@@ -105,6 +124,7 @@ class Surface:
     orientation_broken_at: int | None  # index of the step that first breaks the start orientation
     start_count: int
     end_count: int
+    blowups: tuple[Blowup, ...] = ()
 
     @property
     def connected(self) -> bool:
@@ -191,9 +211,12 @@ def surface_of(start: Sequence[int], transitions: Sequence[Transition]) -> Surfa
         tied.add(node)
         tied.join(positive, node, True)
     morse: list[tuple[Node, int, int, int]] = []
+    gates: list[tuple[int, int, list[tuple[Node, int]]]] = []
     broken_at: int | None = None
     for index, step in enumerate(transitions):
         frame = index + 1
+        if step.turns:
+            gates.append((index, step.turns, [(current[k], d) for k, d in step.gate]))
         after: dict[int, Node] = {}
         ok = True
         touched = {before for before, _, _ in step.links} | set(step.ended)
@@ -262,4 +285,23 @@ def surface_of(start: Sequence[int], transitions: Sequence[Transition]) -> Surfa
         oriented_by_start=broken_at is None,
         orientation_broken_at=broken_at,
         start_count=len(start), end_count=len(end_nodes),
+        blowups=_blowups(gates, pieces, tied, positive, end_nodes),
     )
+
+
+def _blowups(gates, pieces: _Parity, tied: _Parity, positive: Node, end_nodes: set) -> tuple[Blowup, ...]:
+    """aᵢ for each twist: strand directions times the surface's orientation sign of their component."""
+    anchor: dict[Node, int] = {}  # piece root -> sign of the root, from an end node, for pieces off the start
+    for node in sorted(end_nodes):
+        root, sign = pieces.find(node)
+        anchor.setdefault(root, sign)
+
+    def sign(node: Node) -> int:
+        root, s = tied.find(node)
+        if root == tied.find(positive)[0]:
+            return s * tied.find(positive)[1]
+        piece, within = pieces.find(node)
+        return within * anchor.get(piece, 1)
+
+    return tuple(Blowup(index, turns, sum(d * sign(node) for node, d in strands), len(strands))
+                 for index, turns, strands in gates)
