@@ -4,7 +4,7 @@ import json
 
 import pytest
 
-from movies.bounds.questions import cobordism_question, signature_profile
+from movies.bounds.questions import blown_up_question, cobordism_question, signature_profile
 from movies.cli.main import main
 from movies.language.spec import parse_diagram
 
@@ -62,3 +62,33 @@ def test_components_option(capsys):
     assert main(["bounds", "empty", "--to", "empty"]) == 2
     assert main(["bounds", "3_1", "--to", "4_1", "--genus", "1"]) == 0
     assert "allowed by these invariants" in capsys.readouterr().out
+
+
+@pytest.mark.parametrize("name, allowed", [("3_1", True), ("mirror(3_1)", False), ("4_1", True), ("5_1", True),
+                                            ("mirror(5_2)", False)])
+def test_null_homologous_disks_in_a_punctured_blown_up_ball(name, allowed):
+    answer = blown_up_question(parse_diagram(name), parse_diagram("empty"), 0, (0,))
+    # Q. Ren, "Lee filtration structure of torus links" (2023), Cor. 1.4, movie form in the design notes:
+    # a null-homologous disk in a punctured CP²-bar needs s(m(K)) <= 2g + A = 0, i.e. s(K) >= 0
+    assert answer.shapes[0].allowed is allowed
+
+
+def test_a_class_relaxes_the_bound():
+    knot = parse_diagram("mirror(5_1)")  # s = -4 (KnotInfo rasmussen_invariant of 5_1 is 4; Rasmussen 2010: s(m(K)) = -s(K))
+    assert not blown_up_question(knot, parse_diagram("empty"), 0, (0, 0)).shapes[0].allowed
+    # A = sum(a^2 - |a|): class (2, 2) gives A = 4, and s(m(K)) = 4 <= 4 is allowed, an equality
+    (bound, *_) = blown_up_question(knot, parse_diagram("empty"), 0, (2, 2)).shapes[0].bounds
+    assert bound.holds and bound.tight
+    assert blown_up_question(knot, parse_diagram("empty"), 2, (0, 0)).shapes[0].allowed
+
+
+def test_blowups_on_the_command_line(capsys):
+    assert main(["bounds", "mirror(3_1)", "--blowups", "1", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert data["allowed_by_s"] is False and data["class"] == [0]
+    assert main(["bounds", "3_1", "--blowups", "2", "--class", "1,1"]) == 0
+    assert "allowed by these invariants" in capsys.readouterr().out
+    assert main(["bounds", "3_1", "--blowups", "2", "--class", "1"]) == 2
+    assert "one entry per CP²-bar" in capsys.readouterr().err
+    assert main(["bounds", "3_1", "--class", "1"]) == 2
+    assert main(["bounds", "3_1", "--blowups", "1", "--class", "x"]) == 2

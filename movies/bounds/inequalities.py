@@ -127,18 +127,18 @@ def blown_up_bounds(
         ma, mb = s_mirror_start[field], s_mirror_end[field]
         if meets_end:
             if plus:
-                bounds.append(Bound(f"+1 twists, every component meets the end: s(start) - s(end) + A >= chi  [{field}]",
+                bounds.append(Bound(f"CP²-bar summands only (+1 twists), every component meets the end: s(start) - s(end) + A >= chi  [{field}]",
                                     a - b + excess, euler, field, SOURCE_BLOWUPS))
             else:
-                bounds.append(Bound(f"-1 twists (mirror movie), every component meets the end: "
+                bounds.append(Bound(f"CP² summands only (-1 twists; the mirror movie), every component meets the end: "
                                     f"s(m start) - s(m end) + A >= chi  [{field}]", ma - mb + excess, euler, field,
                                     SOURCE_BLOWUPS))
         if meets_start:
             if plus:
-                bounds.append(Bound(f"+1 twists, every component meets the start: s(m end) - s(m start) + A >= chi  [{field}]",
+                bounds.append(Bound(f"CP²-bar summands only (+1 twists), every component meets the start: s(m end) - s(m start) + A >= chi  [{field}]",
                                     mb - ma + excess, euler, field, SOURCE_BLOWUPS))
             else:
-                bounds.append(Bound(f"-1 twists (mirror movie), every component meets the start: "
+                bounds.append(Bound(f"CP² summands only (-1 twists; the mirror movie), every component meets the start: "
                                     f"s(end) - s(start) + A >= chi  [{field}]", b - a + excess, euler, field,
                                     SOURCE_BLOWUPS))
     return bounds

@@ -27,12 +27,12 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 from math import gcd
 
-from movies.bounds.inequalities import Bound, cobordism_bounds
+from movies.bounds.inequalities import Bound, blown_up_bounds, cobordism_bounds
 from movies.bounds.verdicts import LEVINE_TRISTRAM_ORDERS, mirror_s_values, s_values
 from movies.diagram.model import Diagram
 from movies.invariants.signature import is_prime_power, levine_tristram
 
-__all__ = ["CobordismShape", "CobordismAnswer", "cobordism_question", "signature_profile"]
+__all__ = ["CobordismShape", "CobordismAnswer", "cobordism_question", "blown_up_question", "signature_profile"]
 
 SOURCE_SIGNATURE = ("Murasugi 1965; Tristram 1969: a connected oriented genus-g cobordism between knots "
                     "changes the Levine–Tristram signature at a root of prime-power order by at most 2g")
@@ -154,4 +154,31 @@ def cobordism_question(first: Diagram, second: Diagram, genus: int, components: 
         answer.shapes.append(CobordismShape(c, euler, bounds))
     if not knots_or_empty:
         answer.notes.append("signature bounds are asked for knot ends only (for links they need the nullities)")
+    return answer
+
+
+def blown_up_question(first: Diagram, second: Diagram, genus: int, homology_class: tuple[int, ...]) -> CobordismAnswer:
+    """Whether s allows a connected oriented surface of genus ``genus`` from ``first`` to ``second``
+    in (S³ × I or B⁴) # k CP²-bar, k = len(homology_class), in the class (a₁, …, a_k).
+
+    Ren's inequality (:func:`~movies.bounds.inequalities.blown_up_bounds`) with only CP²-bar
+    summands and A = Σ(aᵢ² − |aᵢ|); a null-homologous surface has every aᵢ = 0.
+
+    >>> from movies.language.spec import parse_diagram
+    >>> no = blown_up_question(parse_diagram("mirror(3_1)"), parse_diagram("empty"), 0, (0,))
+    >>> yes = blown_up_question(parse_diagram("3_1"), parse_diagram("empty"), 0, (0,))
+    >>> no.shapes[0].allowed, yes.shapes[0].allowed
+    (False, True)
+    """
+    if first.is_empty() and second.is_empty():
+        raise ValueError("both ends are empty: there is no surface to ask about")
+    s1, s2 = s_values(first), s_values(second)
+    m1, m2 = mirror_s_values(first, s1), mirror_s_values(second, s2)
+    answer = CobordismAnswer(genus, {"first": s1, "second": s2}, {"first": m1, "second": m2})
+    euler = 2 - 2 * genus - first.component_count() - second.component_count()
+    excess = sum(a * a - abs(a) for a in homology_class)
+    bounds = blown_up_bounds(s1, s2, m1, m2, euler, not first.is_empty(), not second.is_empty(), {1}, excess)
+    answer.shapes.append(CobordismShape(1, euler, bounds))
+    answer.notes.append(f"in a punctured connected sum of {len(homology_class)} CP²-bar, class "
+                        f"({', '.join(map(str, homology_class))}), A = {excess}; s is the only invariant asked")
     return answer

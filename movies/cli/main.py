@@ -106,6 +106,11 @@ def build_parser() -> argparse.ArgumentParser:
     bnd.add_argument("--genus", type=int, metavar="G", default=0, help="total genus of the cobordism asked about (default 0)")
     bnd.add_argument("--components", type=int, metavar="N", default=None,
                      help="ask about N components only (default: every number from 1, connected, upwards)")
+    bnd.add_argument("--blowups", type=int, metavar="K", default=None,
+                     help="ask about a connected surface in a punctured connected sum of K copies of CP²-bar "
+                          "(default end: empty), by Ren's inequality")
+    bnd.add_argument("--class", dest="homology_class", metavar="A1,...,AK", default=None,
+                     help="with --blowups: the surface's class (default: null-homologous, all zero)")
     bnd.add_argument("--json", action="store_true", help="print one JSON object")
     bnd.set_defaults(run=_run_bounds)
 
@@ -296,6 +301,8 @@ def _run_bounds(args: argparse.Namespace) -> int:
     first = parse_diagram(args.spec)
     data: dict = {"first": args.spec}
     lines = [args.spec]
+    if args.blowups is not None or args.homology_class is not None:
+        return _run_blown_up(args, first, data, lines)
     if args.to is None:
         if first.component_count() != 1:
             raise InputError("the 4-ball genus bounds are for knots; give --to SPEC to ask about a cobordism")
@@ -323,6 +330,42 @@ def _run_bounds(args: argparse.Namespace) -> int:
             "allowed_by_s_and_signatures": answer.allowed_some, "notes": answer.notes,
         })
         lines += cobordism_lines(args.to, answer)
+    print(json.dumps(data) if args.json else "\n".join(lines))
+    return EXIT_OK
+
+
+def _run_blown_up(args: argparse.Namespace, first, data: dict, lines: list[str]) -> int:
+    from movies.bounds.questions import blown_up_question
+    from movies.cli.render import cobordism_lines
+    from movies.language.spec import parse_diagram
+
+    if args.blowups is None:
+        raise InputError("--class needs --blowups K (the number of CP²-bar summands)")
+    if args.blowups < 1:
+        raise InputError("--blowups is 1 or more")
+    if args.genus < 0:
+        raise InputError("--genus is 0 or more")
+    if args.components is not None:
+        raise InputError("--components is for cobordisms in S³ × I; with --blowups the surface is connected")
+    klass = (0,) * args.blowups
+    if args.homology_class is not None:
+        try:
+            klass = tuple(int(part) for part in args.homology_class.split(","))
+        except ValueError:
+            raise InputError(f"--class is a comma-separated list of integers, not {args.homology_class!r}") from None
+        if len(klass) != args.blowups:
+            raise InputError(f"--class has {len(klass)} entries but --blowups is {args.blowups}: one entry per CP²-bar")
+    target = args.to or "empty"
+    second = parse_diagram(target)
+    try:
+        answer = blown_up_question(first, second, args.genus, klass)
+    except ValueError as err:
+        raise InputError(str(err)) from None
+    shape = answer.shapes[0]
+    data.update({"to": target, "genus": args.genus, "blowups": args.blowups, "class": list(klass),
+                 "s": answer.s, "mirror_s": answer.mirror_s, "cobordisms": [shape.as_json()],
+                 "allowed_by_s": shape.allowed, "notes": answer.notes})
+    lines += cobordism_lines(f"{target} in a punctured # of {args.blowups} CP²-bar", answer)
     print(json.dumps(data) if args.json else "\n".join(lines))
     return EXIT_OK
 
