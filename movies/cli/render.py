@@ -42,12 +42,19 @@ def homology_polynomial(triples: list[list[int]], torsion: list[list[int]] = ())
 
     >>> homology_polynomial([[0, 1, 1], [0, 3, 1], [2, 5, 1], [3, 9, 1]], [[3, 7, 2, 1]])
     'q + q^3 + t^2 q^5 + t^3 q^9 + Z/2 t^3 q^7'
+    >>> homology_polynomial([[0, 0, 2], [1, 0, 3]])
+    '2 + 3 t'
     """
     def monomial(i: int, j: int) -> str:
         parts = [("t" if i == 1 else f"t^{i}") if i else "", ("q" if j == 1 else f"q^{j}") if j else ""]
         return " ".join(p for p in parts if p) or "1"
 
-    terms = [(f"{r} " if r > 1 else "") + monomial(i, j) for i, j, r in triples]
+    def term(i: int, j: int, r: int) -> str:
+        if not i and not j:
+            return str(r)
+        return (f"{r} " if r > 1 else "") + monomial(i, j)
+
+    terms = [term(i, j, r) for i, j, r in triples]
     terms += [(f"{count} " if count > 1 else "") + f"Z/{order} {monomial(i, j)}" for i, j, order, count in torsion]
     return " + ".join(terms) if terms else "0"
 
