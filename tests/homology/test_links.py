@@ -32,7 +32,7 @@ def test_split_unions_on_random_pairs():
         assert link_s(disjoint_union(first, second)) == link_s(first) + link_s(second) - 1
 
 
-TORUS_CASES = [(n, q) for n in range(2, 6) for q in range(n // 2 + 1)]
+TORUS_CASES = [(n, q) for n in range(2, 7) for q in range(n // 2 + 1)]
 
 
 @pytest.mark.parametrize("n, reversed_count", TORUS_CASES)
