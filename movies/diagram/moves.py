@@ -18,7 +18,7 @@ R3          a triangle face with one edge over at both of its crossings
 saddle      two edges on a common face (the band runs across that face)
 birth       a face; a new crossingless circle appears there
 death       a crossingless circle component
-twist       edges a gate crosses in order, through faces it passes (a full twist there)
+twist       the edges a path (the gate) crosses in order; full twists on those strands
 ==========  =====================================================================
 
 >>> from movies.diagram.constructors import unknot
@@ -736,9 +736,9 @@ def twist(
     orientation from the box's entry to the part that runs on to where e_i ended (that last
     one takes over e_i's old end); a crossingless circle cut by the gate stops being one, and
     its piece outside the box keeps its name at both ends, so it needs one name fewer. The faces:
-    each face the box cuts in two keeps its name on the part with the smallest old side (split
-    pieces lying in that face go there too), the other parts and the faces inside the box get
-    new names in the order of the smallest side on their boundary. Faces away from the gate
+    a face the box cuts into parts keeps its name on the part with the smallest side of the old
+    diagram (split pieces lying in that face go there too); the other parts and the faces inside
+    the box get new names in the order of the smallest side on their boundary. Faces away from the gate
     keep their names; so do components (a full twist is a pure braid).
 
     ``k = 1``: a full twist of one strand adds no crossing; the same diagram comes back.
@@ -756,7 +756,13 @@ def twist(
     ((1, 2, 3), (1, -1), 2)
     >>> d = result.diagram
     >>> d.pd_code(), d.writhe(), d.linking_matrix(), d.piece_count()
-    ([(1, 5, 4, 2), (5, 1, 2, 3)], -2, [[0, -1], [-1, 0]], 1)
+    ([(4, 1, 2, 3), (3, 2, 1, 4)], -2, [[0, -1], [-1, 0]], 1)
+    >>> d.components  # each circle is cut once: one new edge inside the box for each
+    {1: (1, 3), 2: (2, 4)}
+    >>> twist(two, [1, 2], +1, start_face=2)
+    Traceback (most recent call last):
+    ...
+    movies.errors.MoveError: no gate across edges [1, 2] from face 2: edges 1 and 2 do not share a face after crossing 1 from face 2 (the gate is in face 1; edge 2 borders faces 3 and 2)
     """
     try:
         edges = list(edges)
@@ -788,7 +794,7 @@ def twist(
             raise MoveError(f"no gate across edges {edges} from face {start_face}: {walk}")
     else:
         walks = {face: _gate_walk(diagram, edges, face) for face in beside}
-        fits = [face for face in beside if not isinstance(walks[face], str)]
+        fits = sorted(face for face in beside if not isinstance(walks[face], str))
         if len(fits) == 2:
             raise MoveError(
                 f"a gate across edges {edges} can start in face {fits[0]} or in face {fits[1]} "
