@@ -26,6 +26,9 @@ EXPECTED = {
     "mistake-false-checkpoint": ("contradicted", -1, [(0, None, 2, 1)]),
     "mistake-false-isotopy": ("contradicted", -2, [(1, None, 1, 1)]),
     "mistake-whitehead-disks": ("contradicted", 2, [(0, None, 1, 0), (0, None, 1, 0)]),
+    "5_1-unknotted-by-twists": ("verified", 1, [(0, None, 1, 0)]),
+    "mirror-5_1-least-genus-in-a-blowup": ("verified", -1, [(1, None, 1, 0)]),
+    "mistake-twist-of-the-wrong-hand": ("contradicted", 1, [(0, None, 1, 0)]),
 }
 
 
@@ -121,3 +124,35 @@ def test_the_whitehead_disks_are_ruled_out_by_the_mirror():
     failing = [b for b in data["bounds"] if not b["holds"]]
     assert failing and all(b["statement"].startswith("mirror movie") and (b["lhs"], b["rhs"]) == (0, 2) for b in failing)
     assert surface["kind"] == "false" and "line 7" in surface["evidence"]
+
+
+def _example(name):
+    return as_json(check_movie(parse_movie((EXAMPLES / f"{name}.movie").read_text())))
+
+
+def test_crossing_changes_as_twists_give_a_null_homologous_disk():
+    data = _example("5_1-unknotted-by-twists")
+    s = data["surface"]
+    assert s["lives_in"] == "B^4 # CP^2-bar # CP^2-bar"
+    assert s["class"] == [0, 0] and s["square"] == 0 and s["null_homologous"]
+    assert all(b["holds"] for b in data["bounds"]) and data["bounds"]
+
+
+def test_a_genus_one_surface_in_a_blowup_is_least_for_its_class():
+    data = _example("mirror-5_1-least-genus-in-a-blowup")
+    s = data["surface"]
+    assert s["lives_in"] == "B^4 # CP^2-bar" and [abs(a) for a in s["class"]] == [2] and s["square"] == -4
+    # KnotInfo rasmussen_invariant: s(5_1) = 4, so s(mirror(5_1)) = -4 (Rasmussen 2010);
+    # Ren (2023), Cor. 1.4: 1 - s(5_1) + A >= chi with A = 2, chi = -1: an equality
+    assert data["s"]["start"]["Q"] == -4
+    assert data["bounds"] and all(b["tight"] for b in data["bounds"])
+    assert "least genus its class allows" in data["least_genus"][0]
+
+
+def test_a_twist_of_the_wrong_hand_is_caught():
+    data = _example("mistake-twist-of-the-wrong-hand")
+    claim, surface = data["findings"]
+    assert claim["kind"] == "false" and claim["line"] == 9
+    assert data["surface"]["null_homologous"]
+    # Ren (2023), Cor. 1.4: a null-homologous disk in a punctured CP²-bar needs s(m(K)) <= 0; s(3_1) = 2
+    assert surface["message"].startswith("no such surface exists") and "CP²-bar summands only" in surface["message"]
