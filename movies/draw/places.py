@@ -33,7 +33,8 @@ def place_of(statement: Statement, diagram: Diagram) -> Highlight:
     Returns a :class:`~movies.draw.svg.Highlight`: a band's two edges and its face, a new
     kink's edge and the face it goes into, the crossing (and loop) of a kink that goes, the
     two edges and the face of a new bigon, the bigon that goes and its crossings, the triangle
-    of a third move and its crossings, the face where a circle is born, the circle that dies.
+    of a third move and its crossings, the face where a circle is born, the circle that dies,
+    the edges a twist's gate crosses and the faces it runs through.
     Names the frame does not have are kept; the drawing ignores them.
 
     >>> from movies.diagram.constructors import unlink
@@ -58,9 +59,17 @@ def place_of(statement: Statement, diagram: Diagram) -> Highlight:
             return Highlight(faces=(a["face"],))
         if kind == "death":
             return Highlight(edges=tuple(diagram.components.get(a["component"], ())))
+        if kind == "twist":
+            # the gate: the edges it crosses and the faces it runs through
+            try:
+                faces = moves.twist(diagram, a["edges"], a["turns"], a.get("start_face")).gate_faces
+            except MoviesError:
+                faces = ()
+            return Highlight(edges=tuple(a["edges"]), faces=tuple(faces))
     except MoviesError:
         # the statement names something the frame lacks (an invalid step): mark what can be marked
-        return Highlight(edges=tuple(v for k, v in a.items() if k in ("edge", "first", "second", "over", "under")),
+        return Highlight(edges=tuple(v for k, v in a.items() if k in ("edge", "first", "second", "over", "under"))
+                         + tuple(a.get("edges", ())),
                          faces=tuple(v for k, v in a.items() if k == "face" and v is not None),
                          crossings=tuple(v for k, v in a.items() if k == "crossing"))
     return Highlight()
