@@ -148,3 +148,17 @@ def test_the_inequality_holds_on_every_verified_movie_of_a_random_family():
         judged += bool(report.bounds)
         with_twists += bool(result.surface.blowups) and bool(report.bounds)
     assert judged >= 20 and with_twists >= 10, (judged, with_twists)
+
+
+@pytest.mark.parametrize("n, q", [(2, 1), (3, 1), (4, 1), (4, 2)])
+def test_strands_both_ways_also_give_an_equality(n, q):
+    edges = " ".join(str(k) for k in range(1, n + 1))
+    reversed_ = ", ".join(str(k) for k in range(1, q + 1))
+    data = as_json(check_movie(parse_movie(f"start reverse(braid({n})[], {reversed_})\ntwist +1 across {edges}")))
+    p = n - q
+    assert data["verdict"] == "verified" and [abs(a) for a in data["surface"]["class"]] == [p - q]
+    # Q. Ren (2023): s(T(n,n)) with p strands one way and q the other is (p - q)^2 - 2p + 1
+    assert data["s"]["end"]["Q"] == (p - q) ** 2 - 2 * p + 1
+    # Ren (2023), Cor. 1.4: (1 - n) - s(T) + A = 0 with A = (p-q)^2 - |p-q|: an equality again
+    first = [b for b in data["bounds"] if "meets the end" in b["statement"]]
+    assert first and all(b["tight"] for b in first)
