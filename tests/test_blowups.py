@@ -162,3 +162,12 @@ def test_strands_both_ways_also_give_an_equality(n, q):
     # Ren (2023), Cor. 1.4: (1 - n) - s(T) + A = 0 with A = (p-q)^2 - |p-q|: an equality again
     first = [b for b in data["bounds"] if "meets the end" in b["statement"]]
     assert first and all(b["tight"] for b in first)
+
+
+def test_a_non_orientable_surface_has_its_class_mod_2():
+    # a crossing change of the trefoil, then a band that twists the surface
+    data = as_json(check_movie(parse_movie("start 3_1\ntwist +1 across 1 5\nband 1 4 in face 1")))
+    surface = data["surface"]
+    assert not surface["orientable"]
+    assert surface["class"] == [0] and surface["square"] is None and surface["null_homologous"]
+    assert data["bounds"] == []

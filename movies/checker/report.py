@@ -25,15 +25,22 @@ def where_it_lives(result: CheckResult) -> str:
     return " # ".join([base] + ["CP^2-bar" if b.turns > 0 else "CP^2" for b in blowups])
 
 
-def homology_class(blowups) -> dict:
+def homology_class(blowups, orientable: bool = True) -> dict:
     """The class of the surface in the blow-ups: (a₁, …, a_k), its square, null-homologous or not.
 
-    The square is −Σaᵢ² over the CP²-bar summands plus Σaᵢ² over the CP² summands.
+    The square is −Σaᵢ² over the CP²-bar summands plus Σaᵢ² over the CP² summands. A surface
+    that is not orientable has a class only mod 2: the entries are then 0 or 1 and the square
+    is None.
 
     >>> from movies.surface.tracker import Blowup
     >>> homology_class([Blowup(0, +1, 2, 2), Blowup(3, -1, 1, 3)])
     {'class': [2, 1], 'square': -3, 'null_homologous': False}
+    >>> homology_class([Blowup(0, +1, 2, 2), Blowup(3, -1, 1, 3)], orientable=False)
+    {'class': [0, 1], 'square': None, 'null_homologous': False}
     """
+    if not orientable:
+        entries = [b.algebraic % 2 for b in blowups]
+        return {"class": entries, "square": None, "null_homologous": not any(entries)}
     entries = [b.algebraic for b in blowups]
     square = sum(-(b.algebraic ** 2) if b.turns > 0 else b.algebraic ** 2 for b in blowups)
     return {"class": entries, "square": square, "null_homologous": not any(entries)}
@@ -82,7 +89,7 @@ def as_json(result: CheckResult) -> dict:
             "lives_in": where_it_lives(result),
             "blowups": [{"step": b.step + 1, "summand": "CP^2-bar" if b.turns > 0 else "CP^2", "turns": b.turns,
                          "strands": b.strands, "algebraic": b.algebraic} for b in s.blowups],
-            **homology_class(s.blowups),
+            **homology_class(s.blowups, s.orientable),
             "euler_characteristic": s.euler_characteristic,
             "births": s.births, "saddles": s.saddles, "deaths": s.deaths,
             "orientable": s.orientable,
@@ -182,7 +189,8 @@ def surface_lines(data: dict) -> list[str]:
         lines.append(f"         {orient}")
         if s["blowups"]:
             entries = ", ".join(map(str, s["class"]))
-            lines.append(f"         class ({entries}) in the blow-ups, square {s['square']}: "
+            square = f"square {s['square']}" if s["square"] is not None else "mod 2 (the surface is not orientable)"
+            lines.append(f"         class ({entries}) in the blow-ups, {square}: "
                          + ("null-homologous" if s["null_homologous"] else "not null-homologous"))
         for index, c in enumerate(s["components"], start=1):
             shape = f"genus {c['genus']}" if c["orientable"] else plural(c["crosscaps"], "crosscap")
