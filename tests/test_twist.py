@@ -16,6 +16,7 @@ import pytest
 from hypothesis import HealthCheck, event, given, settings
 from hypothesis import strategies as st
 
+from support.crossings import switched
 from support.sphere import check_on_sphere
 from movies.diagram.constructors import from_braid, reverse, torus_link, unknot, unlink
 from movies.diagram.isotopy import canonical_form, same_on_sphere
@@ -40,15 +41,6 @@ def concentric(k: int, reversed_circles: tuple[int, ...] = ()) -> Diagram:
         inside = d.faces_beside(circle - 1)[0 if (circle - 1) not in reversed_circles else 1]
         d = birth(d, inside, counterclockwise=circle not in reversed_circles)
     return d
-
-
-def switched(d: Diagram, crossing: int) -> Diagram:
-    """The same diagram with one crossing switched (same faces and names)."""
-    crossings, signs = dict(d.crossings), dict(d.signs)
-    a, b, c, e = crossings[crossing]
-    crossings[crossing] = (e, a, b, c) if signs[crossing] > 0 else (b, c, e, a)
-    signs[crossing] = -signs[crossing]
-    return assemble(crossings, signs, d.loops, previous=d)
 
 
 def leaving_gate(d: Diagram, crossing: int) -> tuple[list[int], int]:

@@ -7,7 +7,9 @@ import pytest
 from movies.diagram.constructors import disjoint_union, from_braid, reverse, torus_link, unlink
 from movies.homology import rasmussen_s
 from movies.homology.links import free_part_s, link_s, link_s_values
+from movies.diagram.tables import table_names
 from movies.language.spec import parse_diagram
+from support.crossings import switched
 
 
 @pytest.mark.parametrize("n", [1, 2, 3, 4])
@@ -85,3 +87,17 @@ def test_reversing_every_component_keeps_s():
         d = parse_diagram(name)
         # common practice, no source: the involution X -> H - X maps the canonical class of o to that of its reverse
         assert link_s(reverse(d, sorted(d.components))) == link_s(d)
+
+
+def test_a_crossing_change_moves_s_by_at_most_two_and_never_up():
+    rng = random.Random(8)
+    names = [n for n in table_names("link", max_crossings=9)]
+    for name in rng.sample(names, 30):
+        d = parse_diagram(name)
+        crossing = rng.choice(sorted(d.crossings))
+        other = switched(d, crossing)
+        plus, minus = (d, other) if d.signs[crossing] > 0 else (other, d)
+        s_plus, s_minus = link_s(plus), link_s(minus)
+        # Beliakova–Wehrli 2008: two oriented saddles (chi = -2) join L+ and L-, so |s(L+) - s(L-)| <= 2;
+        # Q. Ren (2023), Cor. 1.4 with a = 0: the +1 twist that turns L+ into L- does not raise s
+        assert 0 <= s_plus - s_minus <= 2, (name, crossing, s_plus, s_minus)
