@@ -96,6 +96,13 @@ def signature_profile(diagram: Diagram) -> dict[str, int]:
     return profile
 
 
+def _answer_for(first: Diagram, second: Diagram, genus: int):
+    """An empty answer with s of both ends and of their mirrors, and those four values."""
+    s1, s2 = s_values(first), s_values(second)
+    m1, m2 = mirror_s_values(first, s1), mirror_s_values(second, s2)
+    return CobordismAnswer(genus, {"first": s1, "second": s2}, {"first": m1, "second": m2}), (s1, s2, m1, m2)
+
+
 def _signature_bounds(first: Diagram, second: Diagram, genus: int) -> list[Bound]:
     one, other = signature_profile(first), signature_profile(second)
     keys = sorted(set(one) | set(other), key=lambda key: (key != "1/2", key))
@@ -142,9 +149,7 @@ def cobordism_question(first: Diagram, second: Diagram, genus: int, components: 
     if components is not None and not 1 <= components <= most:
         raise ValueError(f"a cobordism whose every component meets both ends has 1 to {most} components, "
                          f"not {components}")
-    s1, s2 = s_values(first), s_values(second)
-    m1, m2 = mirror_s_values(first, s1), mirror_s_values(second, s2)
-    answer = CobordismAnswer(genus, {"first": s1, "second": s2}, {"first": m1, "second": m2})
+    answer, (s1, s2, m1, m2) = _answer_for(first, second, genus)
     knots_or_empty = all(n <= 1 for n in sizes)
     for c in wanted:
         euler = 2 * c - 2 * genus - sum(sizes)
@@ -172,9 +177,7 @@ def blown_up_question(first: Diagram, second: Diagram, genus: int, homology_clas
     """
     if first.is_empty() and second.is_empty():
         raise ValueError("both ends are empty: there is no surface to ask about")
-    s1, s2 = s_values(first), s_values(second)
-    m1, m2 = mirror_s_values(first, s1), mirror_s_values(second, s2)
-    answer = CobordismAnswer(genus, {"first": s1, "second": s2}, {"first": m1, "second": m2})
+    answer, (s1, s2, m1, m2) = _answer_for(first, second, genus)
     euler = 2 - 2 * genus - first.component_count() - second.component_count()
     excess = sum(a * a - abs(a) for a in homology_class)
     bounds = blown_up_bounds(s1, s2, m1, m2, euler, not first.is_empty(), not second.is_empty(), {1}, excess)

@@ -297,6 +297,17 @@ class _Step:
 
     def obj(self, m: tuple, s: int) -> tuple[tuple, int]:
         """(new matching, number of closed circles) of ``m`` glued to smoothing ``s``."""
+        matching, lowest = self._trace(m, s)
+        return matching, len(lowest)
+
+    def closed_circle_labels(self, m: tuple, s: int, boundary: list, crossing: tuple) -> list:
+        """One edge label on each closed circle of ``m`` glued to smoothing ``s``, in the order
+        :meth:`horizontal` numbers the source circles (by smallest point)."""
+        n = self.n
+        return [boundary[p] if p < n else crossing[p - n] for p in self._trace(m, s)[1]]
+
+    def _trace(self, m: tuple, s: int) -> tuple[tuple, list[int]]:
+        """The new matching, and the smallest point of each closed circle, in increasing order."""
         key = (m, s)
         found = self._objects.get(key)
         if found is not None:
@@ -304,8 +315,7 @@ class _Step:
         arc = self._arcs(m, s)
         link = self.link
         newpos = self.newpos
-        size = len(self.new_boundary)
-        new = [0] * size
+        new = [0] * len(self.new_boundary)
         visited = [False] * len(arc)
         for start in range(len(arc)):
             if link[start] >= 0 or visited[start]:
@@ -320,37 +330,6 @@ class _Step:
                 p = link[p]
             new[newpos[start]] = newpos[p]
             new[newpos[p]] = newpos[start]
-        closed = 0
-        for start in range(len(arc)):
-            if not visited[start]:
-                closed += 1
-                p = start
-                while not visited[p]:
-                    visited[p] = True
-                    p = arc[p]
-                    visited[p] = True
-                    p = link[p]
-        found = (tuple(new), closed)
-        self._objects[key] = found
-        return found
-
-    def closed_circle_labels(self, m: tuple, s: int, boundary: list, crossing: tuple) -> list:
-        """One edge label on each closed circle of ``m`` glued to smoothing ``s``, in the order
-        :meth:`horizontal` numbers the source circles (by smallest point)."""
-        arc = self._arcs(m, s)
-        link = self.link
-        visited = [False] * len(arc)
-        for start in range(len(arc)):  # mark the open strands
-            if link[start] >= 0 or visited[start]:
-                continue
-            p = start
-            while True:
-                visited[p] = True
-                p = arc[p]
-                visited[p] = True
-                if link[p] < 0:
-                    break
-                p = link[p]
         lowest = []
         for start in range(len(arc)):
             if visited[start]:
@@ -364,8 +343,9 @@ class _Step:
                 p = link[p]
                 low = min(low, p)
             lowest.append(low)
-        n = self.n
-        return [boundary[p] if p < n else crossing[p - n] for p in sorted(lowest)]
+        found = (tuple(new), sorted(lowest))
+        self._objects[key] = found
+        return found
 
     # --------------------------------------------------------------- morphisms
     def _geometry(self, top: list, bot: list, piece: list, pieces: int):

@@ -9,6 +9,7 @@ from movies.homology import rasmussen_s
 from movies.homology.links import free_part_s, link_s, link_s_values
 from movies.diagram.tables import table_names
 from movies.language.spec import parse_diagram
+from movies.diagram.simplify import simplify
 from support.crossings import switched
 
 
@@ -78,7 +79,17 @@ def test_canonical_class_agrees_with_the_free_part(name):
 def test_the_free_part_alone_cannot_settle_linking_number_zero():
     # the Whitehead link: four free generators in degree 0, so the degrees do not say which is o
     assert free_part_s(parse_diagram("L5a1{0}")) is None
-    assert link_s(parse_diagram("L5a1{0}")) in (-1, 1)
+    whitehead = parse_diagram("L5a1{0}")
+    # one crossing change unlinks it: find the crossing whose switch the Reidemeister search takes to
+    # two crossingless circles
+    unlinked = [c for c in sorted(whitehead.crossings)
+                if simplify(switched(whitehead, c), "crossingless", budget=2000).reached]
+    assert unlinked
+    # Beliakova–Wehrli 2008: s(unlink of 2) = -1, and a crossing change is two oriented saddles
+    # (chi = -2), so |s(L) + 1| <= 2
+    assert abs(link_s(whitehead) + 1) <= 2
+    # common practice, no source: s of a two-component link is odd (its q-degrees are)
+    assert link_s(whitehead) % 2 == 1
 
 
 def test_reversing_every_component_keeps_s():
