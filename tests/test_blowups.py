@@ -67,7 +67,7 @@ def test_a_left_handed_twist_is_never_judged_by_the_right_handed_inequality():
     # KnotInfo rasmussen_invariant: s(3_1) = 2; the unknot has s = 0
     assert (data["s"]["start"]["Q"], data["s"]["end"]["Q"]) == (0, 2)
     assert data["bounds"] and all(b["holds"] for b in data["bounds"])
-    assert all(b["statement"].startswith("CP² summands only") for b in data["bounds"])
+    assert all(b["statement"].startswith("Ren, -1 twists only") for b in data["bounds"])
 
 
 def test_both_hands_give_no_bound_and_say_so():

@@ -29,6 +29,8 @@ EXPECTED = {
     "5_1-unknotted-by-twists": ("verified", 1, [(0, None, 1, 0)]),
     "mirror-5_1-least-genus-in-a-blowup": ("verified", -1, [(1, None, 1, 0)]),
     "mistake-twist-of-the-wrong-hand": ("contradicted", 1, [(0, None, 1, 0)]),
+    "3_1-disk-in-punctured-CP2": ("verified", 1, [(0, None, 1, 0)]),
+    "3_1-from-nothing-in-CP2": ("verified", 1, [(0, None, 0, 1)]),
 }
 
 
@@ -133,7 +135,8 @@ def _example(name):
 def test_crossing_changes_as_twists_give_a_null_homologous_disk():
     data = _example("5_1-unknotted-by-twists")
     s = data["surface"]
-    assert s["lives_in"] == "B^4 # CP^2-bar # CP^2-bar"
+    # the movie ends empty: 5_1 is on the boundary as usual, and each +1 twist is a CP^2 summand
+    assert s["lives_in"] == "B^4 # CP^2 # CP^2" and s["reading"] == "bounded by the start"
     assert s["class"] == [0, 0] and s["square"] == 0 and s["null_homologous"]
     assert all(b["holds"] for b in data["bounds"]) and data["bounds"]
 
@@ -141,7 +144,7 @@ def test_crossing_changes_as_twists_give_a_null_homologous_disk():
 def test_a_genus_one_surface_in_a_blowup_is_least_for_its_class():
     data = _example("mirror-5_1-least-genus-in-a-blowup")
     s = data["surface"]
-    assert s["lives_in"] == "B^4 # CP^2-bar" and [abs(a) for a in s["class"]] == [2] and s["square"] == -4
+    assert s["lives_in"] == "B^4 # CP^2" and [abs(a) for a in s["class"]] == [2] and s["square"] == 4
     # KnotInfo rasmussen_invariant: s(5_1) = 4, so s(mirror(5_1)) = -4 (Rasmussen 2010);
     # Ren (2023), Cor. 1.4: 1 - s(5_1) + A >= chi with A = 2, chi = -1: an equality
     assert data["s"]["start"]["Q"] == -4
@@ -152,7 +155,23 @@ def test_a_genus_one_surface_in_a_blowup_is_least_for_its_class():
 def test_a_twist_of_the_wrong_hand_is_caught():
     data = _example("mistake-twist-of-the-wrong-hand")
     claim, surface = data["findings"]
-    assert claim["kind"] == "false" and claim["line"] == 9
+    assert claim["kind"] == "false" and claim["line"] == 11
     assert data["surface"]["null_homologous"]
-    # Ren (2023), Cor. 1.4: a null-homologous disk in a punctured CP²-bar needs s(m(K)) <= 0; s(3_1) = 2
-    assert surface["message"].startswith("no such surface exists") and "CP²-bar summands only" in surface["message"]
+    # Ren (2023), Cor. 1.4: the left-handed trefoil bounding a null-homologous disk in a punctured CP^2 means
+    # 3_1 bounds one in a punctured CP^2-bar, which needs s(3_1) <= 0; KnotInfo rasmussen_invariant: s(3_1) = 2
+    assert data["surface"]["lives_in"] == "B^4 # CP^2"
+    assert surface["message"].startswith("no such surface exists") and "Ren, +1 twists only" in surface["message"]
+
+
+def test_the_positive_trefoil_bounds_a_null_homologous_disk_in_a_punctured_cp2_both_ways():
+    # Ozsváth–Szabó, "Knot Floer homology and the four-ball genus" (2003), Thm 1.1: no such disk in a negative
+    # definite 4-manifold (tau(3_1) = 1); in punctured CP^2 a crossing change by a twist gives one
+    forwards, backwards = _example("3_1-disk-in-punctured-CP2"), _example("3_1-from-nothing-in-CP2")
+    for data, reading in ((forwards, "bounded by the start"), (backwards, "bounded by the end")):
+        s = data["surface"]
+        assert data["verdict"] == "verified"
+        assert (s["lives_in"], s["reading"], s["definite"]) == ("B^4 # CP^2", reading, "positive definite")
+        assert s["null_homologous"] and s["square"] == 0
+    assert [b["summand"] for b in forwards["surface"]["blowups"]] == ["CP^2"]
+    assert [b["turns"] for b in forwards["surface"]["blowups"]] == [1]
+    assert [b["turns"] for b in backwards["surface"]["blowups"]] == [-1]

@@ -6,6 +6,7 @@ import pytest
 
 from movies.bounds.questions import blown_up_question, cobordism_question, signature_profile
 from movies.cli.main import main
+from movies.homology import rasmussen_s
 from movies.language.spec import parse_diagram
 
 
@@ -64,31 +65,63 @@ def test_components_option(capsys):
     assert "allowed by these invariants" in capsys.readouterr().out
 
 
-@pytest.mark.parametrize("name, allowed", [("3_1", True), ("mirror(3_1)", False), ("4_1", True), ("5_1", True),
-                                            ("mirror(5_2)", False)])
-def test_null_homologous_disks_in_a_punctured_blown_up_ball(name, allowed):
-    answer = blown_up_question(parse_diagram(name), parse_diagram("empty"), 0, (0,))
-    # Q. Ren, "Lee filtration structure of torus links" (2023), Cor. 1.4, movie form in the design notes:
-    # a null-homologous disk in a punctured CP²-bar needs s(m(K)) <= 2g + A = 0, i.e. s(K) >= 0
-    assert answer.shapes[0].allowed is allowed
+@pytest.mark.parametrize("name, s", [("3_1", 2), ("mirror(3_1)", -2), ("4_1", 0), ("5_1", 4), ("mirror(5_2)", -2)])
+def test_null_homologous_disks_in_a_punctured_blown_up_ball(name, s):
+    # KnotInfo column rasmussen_invariant: s(3_1) = 2, s(4_1) = 0, s(5_1) = 4, s(5_2) = 2; Rasmussen 2010: s(m(K)) = -s(K)
+    assert rasmussen_s(parse_diagram(name)) == s
+    in_bar = blown_up_question(parse_diagram(name), parse_diagram("empty"), 0, (0,), "CP^2-bar")
+    in_plus = blown_up_question(parse_diagram(name), parse_diagram("empty"), 0, (0,), "CP^2")
+    # Ozsváth–Szabó, "Knot Floer homology and the four-ball genus" (2003), Thm 1.1, and Q. Ren (2023), Cor. 1.4:
+    # K on the boundary of a negative definite X bounding a null-homologous disk forces s(K) <= 0 (tau(K) <= 0)
+    assert in_bar.place.name == "B^4 # CP^2-bar" and in_bar.place.definite == "negative definite"
+    assert in_bar.shapes[0].allowed is (s <= 0)
+    # reversing the orientation of the pair: K bounds in punctured CP^2 iff m(K) bounds in punctured CP^2-bar
+    assert in_plus.place.name == "B^4 # CP^2"
+    assert in_plus.shapes[0].allowed is (-s <= 0)
+
+
+def test_the_positive_trefoil_bounds_no_null_homologous_disk_in_a_punctured_cp2_bar(capsys):
+    # Ozsváth–Szabó (2003), Thm 1.1: tau(3_1) = 1 > 0, so no null-homologous disk in a negative definite 4-manifold;
+    # Ren (2023), Cor. 1.4, gives the same from s(3_1) = 2 (KnotInfo rasmussen_invariant)
+    assert main(["bounds", "3_1", "--blowups", "1"]) == 0
+    out = capsys.readouterr().out
+    assert "3_1 bounding a null-homologous disk in B^4 # CP^2-bar (punctured, negative definite)" in out
+    assert "no such surface exists: no null-homologous disk" in out
+    # its mirror bounds one: change a crossing by a left-handed twist (the same theorem allows it)
+    assert main(["bounds", "mirror(3_1)", "--blowups", "1"]) == 0
+    assert "allowed by s" in capsys.readouterr().out
+    # and in a punctured CP^2 the trefoil itself is allowed (examples/movies/3_1-disk-in-punctured-CP2.movie draws it)
+    assert main(["bounds", "3_1", "--blowups", "1", "--summand", "CP2", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert data["lives_in"] == "B^4 # CP^2" and data["definite"] == "positive definite" and data["allowed_by_s"]
+    assert main(["bounds", "3_1", "--blowups", "1", "--summand", "CP3"]) == 2
+    assert "a summand is CP2-bar or CP2" in capsys.readouterr().err
+
+
+def test_a_cobordism_through_blowups_is_named_as_a_cobordism(capsys):
+    assert main(["bounds", "3_1", "--to", "unknot", "--blowups", "1", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert data["lives_in"] == "S^3 x I # CP^2-bar" and data["reading"] == "from the start to the end"
 
 
 def test_a_class_relaxes_the_bound():
-    knot = parse_diagram("mirror(5_1)")  # s = -4 (KnotInfo rasmussen_invariant of 5_1 is 4; Rasmussen 2010: s(m(K)) = -s(K))
-    assert not blown_up_question(knot, parse_diagram("empty"), 0, (0, 0)).shapes[0].allowed
-    # A = sum(a^2 - |a|): class (2, 2) gives A = 4, and s(m(K)) = 4 <= 4 is allowed, an equality
-    (bound, *_) = blown_up_question(knot, parse_diagram("empty"), 0, (2, 2)).shapes[0].bounds
+    knot = parse_diagram("5_1")  # s = 4 (KnotInfo rasmussen_invariant of 5_1)
+    empty = parse_diagram("empty")
+    assert not blown_up_question(knot, empty, 0, (0, 0)).shapes[0].allowed
+    # Ren (2023), Cor. 1.4: s(K) <= 1 - chi + A with A = sum(a^2 - |a|); class (2, 2) gives A = 4: 4 <= 4, an equality
+    (bound, *_) = blown_up_question(knot, empty, 0, (2, 2)).shapes[0].bounds
     assert bound.holds and bound.tight
-    assert blown_up_question(knot, parse_diagram("empty"), 2, (0, 0)).shapes[0].allowed
+    assert blown_up_question(knot, empty, 0, (2, 2)).place.square == -8
+    assert blown_up_question(knot, empty, 2, (0, 0)).shapes[0].allowed
 
 
 def test_blowups_on_the_command_line(capsys):
-    assert main(["bounds", "mirror(3_1)", "--blowups", "1", "--json"]) == 0
+    assert main(["bounds", "3_1", "--blowups", "1", "--json"]) == 0
     data = json.loads(capsys.readouterr().out)
-    assert data["allowed_by_s"] is False and data["class"] == [0]
-    assert main(["bounds", "3_1", "--blowups", "2", "--class", "1,1"]) == 0
-    assert "allowed by these invariants" in capsys.readouterr().out
+    assert data["allowed_by_s"] is False and data["class"] == [0] and data["square"] == 0
+    assert main(["bounds", "3_1", "--blowups", "2", "--class", "1,1", "--genus", "1"]) == 0
+    assert "allowed by s" in capsys.readouterr().out
     assert main(["bounds", "3_1", "--blowups", "2", "--class", "1"]) == 2
-    assert "one entry per CP²-bar" in capsys.readouterr().err
+    assert "one entry per blow-up" in capsys.readouterr().err
     assert main(["bounds", "3_1", "--class", "1"]) == 2
     assert main(["bounds", "3_1", "--blowups", "1", "--class", "x"]) == 2

@@ -93,7 +93,7 @@ def cobordism_bounds(
 
 
 SOURCE_BLOWUPS = ("Q. Ren, 'Lee filtration structure of torus links' (2023), Cor. 1.4: s bounds surfaces "
-                  "in punctured connected sums of CP²-bar")
+                  "in negative definite blow-ups of the 4-ball, read here for a cobordism with +1 twists")
 
 
 def blown_up_bounds(
@@ -109,7 +109,8 @@ def blown_up_bounds(
 ) -> list[Bound]:
     """Ren's adjunction inequality in movie form, for a surface through blow-ups.
 
-    ``turns`` holds the signs of the twists (+1: CP²-bar, −1: CP²); ``excess`` is
+    ``turns`` holds the signs of the twist steps (a +1 twist is a CP²-bar summand of the cobordism
+    W from L₀ to L₁, a −1 twist a CP² summand); ``excess`` is
     A = Σ(aᵢ² − |aᵢ|). Only +1 twists: s(L₁) ≤ s(L₀) − χ + A when every component meets L₁, and
     s(m(L₀)) ≤ s(m(L₁)) − χ + A when every component meets L₀. Only −1 twists: the same for the
     mirror movie (which has only +1 twists). Both signs: none (an empty list).
@@ -127,18 +128,18 @@ def blown_up_bounds(
         ma, mb = s_mirror_start[field], s_mirror_end[field]
         if meets_end:
             if plus:
-                bounds.append(Bound(f"CP²-bar summands only (+1 twists), every component meets the end: s(start) - s(end) + A >= chi  [{field}]",
+                bounds.append(Bound(f"Ren, +1 twists only, every component meets the end: s(start) - s(end) + A >= chi  [{field}]",
                                     a - b + excess, euler, field, SOURCE_BLOWUPS))
             else:
-                bounds.append(Bound(f"CP² summands only (-1 twists; the mirror movie), every component meets the end: "
+                bounds.append(Bound(f"Ren, -1 twists only (the mirror movie), every component meets the end: "
                                     f"s(m start) - s(m end) + A >= chi  [{field}]", ma - mb + excess, euler, field,
                                     SOURCE_BLOWUPS))
         if meets_start:
             if plus:
-                bounds.append(Bound(f"CP²-bar summands only (+1 twists), every component meets the start: s(m end) - s(m start) + A >= chi  [{field}]",
+                bounds.append(Bound(f"Ren, +1 twists only, every component meets the start: s(m end) - s(m start) + A >= chi  [{field}]",
                                     mb - ma + excess, euler, field, SOURCE_BLOWUPS))
             else:
-                bounds.append(Bound(f"CP² summands only (-1 twists; the mirror movie), every component meets the start: "
+                bounds.append(Bound(f"Ren, -1 twists only (the mirror movie), every component meets the start: "
                                     f"s(end) - s(start) + A >= chi  [{field}]", b - a + excess, euler, field,
                                     SOURCE_BLOWUPS))
     return bounds

@@ -27,10 +27,12 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 from math import gcd
 
-from movies.bounds.inequalities import Bound, blown_up_bounds, cobordism_bounds
+from movies.bounds.ambient import Ambient, ambient, applicable_bounds, twist_for
+from movies.bounds.inequalities import Bound, cobordism_bounds
 from movies.bounds.verdicts import LEVINE_TRISTRAM_ORDERS, mirror_s_values, s_values
 from movies.diagram.model import Diagram
 from movies.invariants.signature import is_prime_power, levine_tristram
+from movies.surface.tracker import Blowup
 
 __all__ = ["CobordismShape", "CobordismAnswer", "cobordism_question", "blown_up_question", "signature_profile"]
 
@@ -66,6 +68,7 @@ class CobordismAnswer:
     mirror_s: dict
     shapes: list[CobordismShape] = field(default_factory=list)
     notes: list[str] = field(default_factory=list)
+    place: Ambient | None = None  # the blown-up 4-manifold asked about, if any
 
     @property
     def allowed_connected(self) -> bool:
@@ -162,26 +165,68 @@ def cobordism_question(first: Diagram, second: Diagram, genus: int, components: 
     return answer
 
 
-def blown_up_question(first: Diagram, second: Diagram, genus: int, homology_class: tuple[int, ...]) -> CobordismAnswer:
-    """Whether s allows a connected oriented surface of genus ``genus`` from ``first`` to ``second``
-    in (S³ × I or B⁴) # k CP²-bar, k = len(homology_class), in the class (a₁, …, a_k).
+def _without_movie(bound: Bound) -> Bound:
+    """Ren's inequality as a question states it: the ends are the first and the second link.
 
-    Ren's inequality (:func:`~movies.bounds.inequalities.blown_up_bounds`) with only CP²-bar
-    summands and A = Σ(aᵢ² − |aᵢ|); a null-homologous surface has every aᵢ = 0.
+    >>> from movies.bounds.inequalities import SOURCE_BLOWUPS
+    >>> _without_movie(Bound("Ren, -1 twists only (the mirror movie), every component meets the start: "
+    ...                      "s(end) - s(start) + A >= chi  [Q]", -1, 1, "Q", SOURCE_BLOWUPS)).statement
+    "Ren's inequality: s(second) - s(first) + A >= chi  [Q]"
+    """
+    formula = bound.statement.split(": ", 1)[1].replace("start", "first").replace("end", "second")
+    return Bound(f"Ren's inequality: {formula}", bound.lhs, bound.rhs, bound.field, bound.source)
+
+
+def blown_up_question(first: Diagram, second: Diagram, genus: int, homology_class: tuple[int, ...],
+                      summand: str = "CP^2-bar") -> CobordismAnswer:
+    """Whether s allows a connected oriented surface of genus ``genus`` in a blown-up ball.
+
+    The 4-manifold is named for the link on its boundary (:mod:`movies.bounds.ambient`): with
+    ``second`` empty, ``first`` bounds the surface in B⁴ # k ``summand`` (punctured); with both
+    ends links, the surface is a cobordism from ``first`` to ``second`` in (S³ × I) # k
+    ``summand``; k = len(homology_class), and the class is (a₁, …, a_k). Ren's inequality
+    (:func:`~movies.bounds.inequalities.blown_up_bounds`) with A = Σ(aᵢ² − |aᵢ|) decides.
+
+    Parameters
+    ----------
+    first, second : Diagram
+        The ends (``second`` may be empty, not both).
+    genus : int
+        The genus asked about.
+    homology_class : tuple of int
+        (a₁, …, a_k); all zero for a null-homologous surface.
+    summand : str
+        ``"CP^2-bar"`` (negative definite, the default) or ``"CP^2"``.
+
+    Returns
+    -------
+    CobordismAnswer
+
+    A null-homologous disk for the positive trefoil (s = 2) in a punctured CP²-bar would need
+    s ≤ 0; its mirror bounds one:
 
     >>> from movies.language.spec import parse_diagram
-    >>> no = blown_up_question(parse_diagram("mirror(3_1)"), parse_diagram("empty"), 0, (0,))
-    >>> yes = blown_up_question(parse_diagram("3_1"), parse_diagram("empty"), 0, (0,))
+    >>> no = blown_up_question(parse_diagram("3_1"), parse_diagram("empty"), 0, (0,))
+    >>> yes = blown_up_question(parse_diagram("mirror(3_1)"), parse_diagram("empty"), 0, (0,))
     >>> no.shapes[0].allowed, yes.shapes[0].allowed
     (False, True)
+
+    References
+    ----------
+    Q. Ren, "Lee filtration structure of torus links" (2023), Cor. 1.4; P. Ozsváth, Z. Szabó,
+    "Knot Floer homology and the four-ball genus" (2003), Thm. 1.1.
     """
     if first.is_empty() and second.is_empty():
         raise ValueError("both ends are empty: there is no surface to ask about")
+    ends = (first.is_empty(), second.is_empty())
+    twist = twist_for(summand, *ends)
+    place = ambient(*ends, [Blowup(index, twist, a, abs(a)) for index, a in enumerate(homology_class)])
     answer, (s1, s2, m1, m2) = _answer_for(first, second, genus)
     euler = 2 - 2 * genus - first.component_count() - second.component_count()
+    bounds, _ = applicable_bounds(place, {"start": s1, "end": s2}, {"start": m1, "end": m2}, euler,
+                                  not first.is_empty(), not second.is_empty())
+    answer.shapes.append(CobordismShape(1, euler, [_without_movie(b) for b in bounds]))
     excess = sum(a * a - abs(a) for a in homology_class)
-    bounds = blown_up_bounds(s1, s2, m1, m2, euler, not first.is_empty(), not second.is_empty(), {1}, excess)
-    answer.shapes.append(CobordismShape(1, euler, bounds))
-    answer.notes.append(f"in a punctured connected sum of {len(homology_class)} CP²-bar, class "
-                        f"({', '.join(map(str, homology_class))}), A = {excess}; s is the only invariant asked")
+    answer.place = place
+    answer.notes.append(f"A = sum(a_i^2 - |a_i|) = {excess}; s is the only invariant asked")
     return answer

@@ -15,14 +15,8 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 
-from movies.bounds.inequalities import (
-    Bound,
-    GenusBound,
-    best_genus_bound,
-    blown_up_bounds,
-    cobordism_bounds,
-    four_genus_bounds,
-)
+from movies.bounds.ambient import Ambient, ambient, applicable_bounds
+from movies.bounds.inequalities import Bound, GenusBound, best_genus_bound, four_genus_bounds
 from movies.diagram.constructors import mirror
 from movies.diagram.model import Diagram
 from movies.homology.khovanov import bar_natan_complex, s_from_complex
@@ -89,6 +83,19 @@ def knot_genus_bounds(diagram: Diagram) -> list[GenusBound]:
     return four_genus_bounds(s, signature(diagram), lt)
 
 
+def surface_ambient(result) -> Ambient:
+    """The 4-manifold the surface of a checked movie (``CheckResult``) lives in, named for its boundary.
+
+    >>> from movies.language.movie import parse_movie
+    >>> from movies.checker.replay import check_movie
+    >>> surface_ambient(check_movie(parse_movie("start unknot\\ndeath 1"))).sentence()
+    'in B^4, bounded by the start'
+    """
+    surface = result.surface
+    return ambient(result.movie.start.is_empty(), result.frames[-1].is_empty(),
+                   surface.blowups if surface is not None else (), surface is None or surface.orientable)
+
+
 def surface_bounds(result) -> BoundsReport:
     """The s-inequalities and genus bounds for the surface of a checked movie (``CheckResult``)."""
     report = BoundsReport()
@@ -105,21 +112,12 @@ def surface_bounds(result) -> BoundsReport:
         report.notes.append("the surface is not oriented compatibly with the start, so the s-inequalities do not apply")
         return report
     mirror_s = {label: mirror_s_values(frame, report.s[label]) for label, frame in (("start", start), ("end", end))}
-    meets = (surface.every_component_meets_start, surface.every_component_meets_end)
-    if surface.blowups:
-        turns = {b.turns for b in surface.blowups}
-        excess = sum(b.algebraic ** 2 - abs(b.algebraic) for b in surface.blowups)
-        report.bounds = blown_up_bounds(report.s["start"], report.s["end"], mirror_s["start"], mirror_s["end"],
-                                        surface.euler_characteristic, *meets, turns, excess)
-        if len(turns) > 1:
-            report.notes.append("the movie has both +1 and -1 twists: the 4-manifold is indefinite "
-                                "(CP² and CP²-bar summands), so s gives no bound for this surface")
-            return report
-        report.notes.append(f"the surface passes through blow-ups: only Ren's inequality applies, with "
-                            f"A = sum(a_i^2 - |a_i|) = {excess}")
-    else:
-        report.bounds = cobordism_bounds(report.s["start"], report.s["end"], mirror_s["start"], mirror_s["end"],
-                                         surface.euler_characteristic, *meets)
+    place = surface_ambient(result)
+    report.bounds, notes = applicable_bounds(place, report.s, mirror_s, surface.euler_characteristic,
+                                             surface.every_component_meets_start, surface.every_component_meets_end)
+    report.notes.extend(notes)
+    if place.definite == "indefinite":
+        return report
     if not report.bounds:
         report.notes.append("some component of the surface meets neither end, so no s-inequality applies")
     if surface.blowups:
@@ -127,7 +125,7 @@ def surface_bounds(result) -> BoundsReport:
         if tight and surface.connected:
             report.least_genus.append(
                 f"the inequality '{tight[0].statement}' is an equality: the surface has the least genus its "
-                f"class allows (no connected oriented surface with these ends, in this 4-manifold and this class, "
+                f"class allows (no connected oriented surface with these ends, in {place.name} and in this class, "
                 f"has larger Euler characteristic)"
             )
         return report

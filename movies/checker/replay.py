@@ -158,10 +158,13 @@ def twist_note(turns: int, strands: int, algebraic: int) -> str:
     """What a twist step says in the report.
 
     >>> twist_note(+1, 2, 0)
-    'a right-handed full twist on 2 strands (algebraic 0): through a CP²-bar summand'
+    'a right-handed full twist on 2 strands (algebraic 0): one blow-up'
+
+    Which summand the blow-up is (CP² or CP²-bar) depends on which end of the movie is the
+    boundary; the surface's report names it (:mod:`movies.bounds.ambient`).
     """
-    hand, summand = ("right", "CP²-bar") if turns > 0 else ("left", "CP²")
-    return f"a {hand}-handed full twist on {strands} strands (algebraic {algebraic}): through a {summand} summand"
+    hand = "right" if turns > 0 else "left"
+    return f"a {hand}-handed full twist on {strands} strands (algebraic {algebraic}): one blow-up"
 
 
 def band_transition(result: moves.SaddleResult) -> Transition:

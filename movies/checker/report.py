@@ -9,41 +9,12 @@
 
 from __future__ import annotations
 
+from movies.bounds.verdicts import surface_ambient
 from movies.checker.replay import REFUTED, VERDICT_MEANING, CheckResult
 
 
 def _frame(diagram) -> dict:
     return {"components": diagram.component_count(), "crossings": diagram.crossing_count()}
-
-
-def where_it_lives(result: CheckResult) -> str:
-    """S³ × I, B⁴ (one end empty) or S⁴ (both empty), connected-summed with a CP²-bar for each
-    +1 twist and a CP² for each −1 twist, in the order of the steps."""
-    empty = [result.movie.start.is_empty(), result.frames[-1].is_empty()]
-    base = "S^4" if all(empty) else "B^4" if any(empty) else "S^3 x I"
-    blowups = result.surface.blowups if result.surface is not None else ()
-    return " # ".join([base] + ["CP^2-bar" if b.turns > 0 else "CP^2" for b in blowups])
-
-
-def homology_class(blowups, orientable: bool = True) -> dict:
-    """The class of the surface in the blow-ups: (a₁, …, a_k), its square, null-homologous or not.
-
-    The square is −Σaᵢ² over the CP²-bar summands plus Σaᵢ² over the CP² summands. A surface
-    that is not orientable has a class only mod 2: the entries are then 0 or 1 and the square
-    is None.
-
-    >>> from movies.surface.tracker import Blowup
-    >>> homology_class([Blowup(0, +1, 2, 2), Blowup(3, -1, 1, 3)])
-    {'class': [2, 1], 'square': -3, 'null_homologous': False}
-    >>> homology_class([Blowup(0, +1, 2, 2), Blowup(3, -1, 1, 3)], orientable=False)
-    {'class': [0, 1], 'square': None, 'null_homologous': False}
-    """
-    if not orientable:
-        entries = [b.algebraic % 2 for b in blowups]
-        return {"class": entries, "square": None, "null_homologous": not any(entries)}
-    entries = [b.algebraic for b in blowups]
-    square = sum(-(b.algebraic ** 2) if b.turns > 0 else b.algebraic ** 2 for b in blowups)
-    return {"class": entries, "square": square, "null_homologous": not any(entries)}
 
 
 def as_json(result: CheckResult) -> dict:
@@ -86,10 +57,7 @@ def as_json(result: CheckResult) -> dict:
     s = result.surface
     if s is not None:
         data["surface"] = {
-            "lives_in": where_it_lives(result),
-            "blowups": [{"step": b.step + 1, "summand": "CP^2-bar" if b.turns > 0 else "CP^2", "turns": b.turns,
-                         "strands": b.strands, "algebraic": b.algebraic} for b in s.blowups],
-            **homology_class(s.blowups, s.orientable),
+            **surface_ambient(result).as_json(),
             "euler_characteristic": s.euler_characteristic,
             "births": s.births, "saddles": s.saddles, "deaths": s.deaths,
             "orientable": s.orientable,
@@ -174,7 +142,7 @@ def surface_lines(data: dict) -> list[str]:
         lines.append("surface  not computed: the movie stops at an invalid step")
     else:
         lines.append(
-            f"surface  in {s['lives_in']}: Euler characteristic {s['euler_characteristic']} "
+            f"surface  in {s['lives_in']}, {s['reading']}: Euler characteristic {s['euler_characteristic']} "
             f"({plural(s['births'], 'birth')}, {plural(s['saddles'], 'band')}, {plural(s['deaths'], 'death')})"
         )
         if not s["orientable"]:
@@ -190,7 +158,7 @@ def surface_lines(data: dict) -> list[str]:
         if s["blowups"]:
             entries = ", ".join(map(str, s["class"]))
             square = f"square {s['square']}" if s["square"] is not None else "mod 2 (the surface is not orientable)"
-            lines.append(f"         class ({entries}) in the blow-ups, {square}: "
+            lines.append(f"         class ({entries}) in the blow-ups ({s['definite']}), {square}: "
                          + ("null-homologous" if s["null_homologous"] else "not null-homologous"))
         for index, c in enumerate(s["components"], start=1):
             shape = f"genus {c['genus']}" if c["orientable"] else plural(c["crosscaps"], "crosscap")

@@ -107,8 +107,11 @@ def build_parser() -> argparse.ArgumentParser:
     bnd.add_argument("--components", type=int, metavar="N", default=None,
                      help="ask about N components only (default: every number from 1, connected, upwards)")
     bnd.add_argument("--blowups", type=int, metavar="K", default=None,
-                     help="ask about a connected surface in a punctured connected sum of K copies of CP²-bar "
-                          "(default end: empty), by Ren's inequality")
+                     help="ask, by Ren's inequality, about a connected surface that SPEC bounds in the 4-ball "
+                          "blown up K times (SPEC on its boundary, oriented as usual); with --to, about a "
+                          "cobordism from SPEC to the other end in S³ × I blown up K times")
+    bnd.add_argument("--summand", metavar="CP2-bar|CP2", default=None,
+                     help="with --blowups: which summand, CP2-bar (negative definite, the default) or CP2")
     bnd.add_argument("--class", dest="homology_class", metavar="A1,...,AK", default=None,
                      help="with --blowups: the surface's class (default: null-homologous, all zero)")
     bnd.add_argument("--json", action="store_true", help="print one JSON object")
@@ -125,6 +128,15 @@ def build_parser() -> argparse.ArgumentParser:
     frm.add_argument("--budget", type=float, metavar="SECONDS", default=None, help="as for check")
     frm.set_defaults(run=_run_frames)
     return parser
+
+
+def _summand(text: str) -> str:
+    """``CP2-bar``, ``CP^2-bar``, ``cp2bar`` ... -> ``CP^2-bar``; ``CP2``, ``CP^2`` -> ``CP^2``."""
+    key = text.lower().replace("^", "").replace("-", "").replace("_", "").replace("²", "2")
+    names = {"cp2bar": "CP^2-bar", "cp2": "CP^2"}
+    if key not in names:
+        raise InputError(f"--summand: a summand is CP2-bar or CP2, not {text!r}")
+    return names[key]
 
 
 def _json_argument(text: str, what: str):
@@ -301,7 +313,7 @@ def _run_bounds(args: argparse.Namespace) -> int:
     first = parse_diagram(args.spec)
     data: dict = {"first": args.spec}
     lines = [args.spec]
-    if args.blowups is not None or args.homology_class is not None:
+    if args.blowups is not None or args.homology_class is not None or args.summand is not None:
         return _run_blown_up(args, first, data, lines)
     if args.to is None:
         if first.component_count() != 1:
@@ -336,17 +348,18 @@ def _run_bounds(args: argparse.Namespace) -> int:
 
 def _run_blown_up(args: argparse.Namespace, first, data: dict, lines: list[str]) -> int:
     from movies.bounds.questions import blown_up_question
-    from movies.cli.render import cobordism_lines
+    from movies.cli.render import blown_up_lines
     from movies.language.spec import parse_diagram
 
     if args.blowups is None:
-        raise InputError("--class needs --blowups K (the number of CP²-bar summands)")
+        raise InputError("--class and --summand need --blowups K (the number of blow-ups)")
     if args.blowups < 1:
         raise InputError("--blowups is 1 or more")
     if args.genus < 0:
         raise InputError("--genus is 0 or more")
     if args.components is not None:
         raise InputError("--components is for cobordisms in S³ × I; with --blowups the surface is connected")
+    summand = _summand(args.summand or "CP2-bar")
     klass = (0,) * args.blowups
     if args.homology_class is not None:
         try:
@@ -354,18 +367,20 @@ def _run_blown_up(args: argparse.Namespace, first, data: dict, lines: list[str])
         except ValueError:
             raise InputError(f"--class is a comma-separated list of integers, not {args.homology_class!r}") from None
         if len(klass) != args.blowups:
-            raise InputError(f"--class has {len(klass)} entries but --blowups is {args.blowups}: one entry per CP²-bar")
+            raise InputError(f"--class has {len(klass)} entries but --blowups is {args.blowups}: one entry per blow-up")
     target = args.to or "empty"
     second = parse_diagram(target)
     try:
-        answer = blown_up_question(first, second, args.genus, klass)
+        answer = blown_up_question(first, second, args.genus, klass, summand)
     except ValueError as err:
         raise InputError(str(err)) from None
     shape = answer.shapes[0]
-    data.update({"to": target, "genus": args.genus, "blowups": args.blowups, "class": list(klass),
+    data.update({"to": target, "genus": args.genus, "blowups": args.blowups, "summand": summand,
+                 "lives_in": answer.place.name, "reading": answer.place.reading,
+                 "definite": answer.place.definite, "class": list(klass), "square": answer.place.square,
                  "s": answer.s, "mirror_s": answer.mirror_s, "cobordisms": [shape.as_json()],
                  "allowed_by_s": shape.allowed, "notes": answer.notes})
-    lines += cobordism_lines(f"{target} in a punctured # of {args.blowups} CP²-bar", answer)
+    lines += blown_up_lines(args.spec, target, answer)
     print(json.dumps(data) if args.json else "\n".join(lines))
     return EXIT_OK
 
