@@ -110,6 +110,24 @@ def test_frames_command_prints_names(capsys):
     assert main(["frames", str(EXAMPLES / "square-knot-ribbon.movie"), "--at", "9"]) == 2
 
 
+def test_frames_as_json_and_drawn(capsys, tmp_path):
+    movie = str(EXAMPLES / "square-knot-ribbon.movie")
+    out = tmp_path / "frame.svg"
+    assert main(["frames", movie, "--at", "1", "--json", "--svg", str(out)]) == 0
+    data = json.loads(capsys.readouterr().out)
+    result = check_movie(parse_movie((EXAMPLES / "square-knot-ribbon.movie").read_text()))
+    frame = result.frames[1]
+    assert data["at"] == 1 and data["step"] == "band 4 10 in face 1" and data["frames"] == len(result.frames)
+    assert [c["name"] for c in data["crossings"]] == sorted(frame.crossings)
+    assert {c["name"]: tuple(c["pd"]) for c in data["crossings"]} == frame.crossings
+    assert [c["edges"] for c in data["components"]] == [list(frame.components[k]) for k in sorted(frame.components)]
+    assert [f["name"] for f in data["faces"]] == sorted(frame.faces)
+    svg = out.read_text()
+    # drawn with its names: every crossing's name is written in the picture
+    assert svg.startswith("<svg") and all(f">{name}<" in svg for name in frame.crossings)
+    assert main(["frames", movie, "--at", "1", "--svg", str(tmp_path / "no" / "such" / "dir.svg")]) == 2
+
+
 def test_readme_run_command_works():
     result = subprocess.run([sys.executable, "-m", "movies", "check", str(EXAMPLES / "square-knot-ribbon.movie")],
                             capture_output=True, text=True)

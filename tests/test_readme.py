@@ -13,6 +13,7 @@ def test_python_example_runs():
     exec(compile(block, "README.md", "exec"), namespace)
     assert namespace["k"].crossing_count() == 6 and namespace["k"].writhe() == 0
     assert namespace["d3"].crossing_count() == 6
+    assert namespace["result"].verdict == "verified" and namespace["disk"].verified
 
 
 def test_ci_runs_the_readme_test_command():

@@ -75,7 +75,23 @@ def test_merge_against_the_orientation_is_orientable_but_not_by_the_start():
 def test_ribbon_needs_no_births():
     _, s = surface("start unknot\nbirth in face 2\nband 1 2\ndeath 1")
     assert s["euler_characteristic"] == 1 and shape(s) == [(0, None, 1, 0)]
-    assert not s["ribbon"]
+    assert s["ribbon"] is None
+
+
+@pytest.mark.parametrize("text, ribbon", [
+    ("start unknot\nbirth in face 2\nband 1 2\ndeath 1\nsurface ribbon", None),  # a birth: not shown
+    ("start empty\nbirth in face 1\nsurface ribbon", True),                     # outward: no deaths
+    ("start unknot\nR1 add 1 left +\nR1 remove 1\nsurface ribbon", None),       # not a surface in the 4-ball
+    ("start unknot\ndeath 1\nsurface ribbon", True),
+])
+def test_a_ribbon_claim_is_shown_or_left_unproved_never_refuted(text, ribbon):
+    result = check_movie(parse_movie(text))
+    ((fact, _, holds, detail),) = result.claims
+    assert fact == "ribbon" and holds is ribbon
+    # common practice, no source: a movie with local maxima may still draw a surface isotopic to a ribbon one
+    assert result.verdict == ("verified" if ribbon else "conditional"), detail
+    if ribbon is None:
+        assert "not shown by this movie" in as_json(result)["findings"][0]["message"]
 
 
 def test_transitions_directly():

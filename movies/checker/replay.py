@@ -26,6 +26,7 @@ from movies.invariants.alexander import alexander_polynomial, determinant
 from movies.checker.distinguish import first_difference
 from movies.invariants.jones import jones_polynomial
 from movies.invariants.signature import signature
+from movies.language.files import read_movie
 from movies.language.movie import MOVE_KINDS, Movie, Statement
 from movies.surface.tracker import Surface, Transition, identity_transition, surface_of
 
@@ -293,9 +294,10 @@ class _Replay:
         outcome = search.simplify_frame(self.frame, target, self.budget)
         found = tuple(outcome.moves)
         if outcome.reached:
-            note = f"found {len(found)} Reidemeister moves"
+            note = f"found {_count(len(found), 'Reidemeister move')}"
         else:
-            note = f"the search did not reach {search.describe_target(target)} within the budget"
+            note = (f"the search stopped at {_count(outcome.diagram.crossing_count(), 'crossing')} without reaching "
+                    f"{search.describe_target(target)}: {outcome.why}")
             self.find("unproved", statement, f"step {self.number}: {note}; the movie goes on from the diagram it reached")
         transition = identity_transition("simplify", sorted(self.frame.components))
         return outcome.diagram, transition, outcome.reached, note, found
@@ -312,16 +314,19 @@ class _Replay:
                       f"they differ in {difference}", about="isotopy step")
         else:
             self.find("unproved", statement, f"step {self.number}: isotopic to {statement.args['spec']} is unproved",
-                      "the search found no Reidemeister moves between them; every invariant agrees",
+                      f"the search found no Reidemeister moves between them: {outcome.why}; every invariant agrees",
                       about="isotopy step")
         if self.frame.component_count() != given.component_count():
             # the claim is false, and the surface cannot be followed through it
             return given, Transition("isotopic", links=(), ended=tuple(self.frame.components),
                                      started=tuple(given.components)), False, "refuted", ()
         pairs = zip(sorted(self.frame.components), sorted(given.components))
-        note = "components matched in order of their names"
+        matched = "components matched in order of their names"
         if difference is not None:
-            note = f"{REFUTED}: they differ in {difference}; the movie goes on from the claimed diagram, {note}"
+            note = f"{REFUTED}: they differ in {difference}; the movie goes on from the claimed diagram, {matched}"
+        else:
+            note = (f"the search found no Reidemeister moves to the claimed diagram: {outcome.why}; every invariant "
+                    f"agrees, and the movie goes on from the claimed diagram ({matched})")
         return given, Transition("isotopic", links=tuple((a, b, True) for a, b in pairs)), False, note, ()
 
     # -------------------------------------------------------------- checkpoints
@@ -383,10 +388,7 @@ class _Replay:
         elif fact == "components":
             holds, detail = len(comps) == value, f"the surface has {_count(len(comps), 'component')}"
         elif fact == "ribbon":
-            empty_end = self.frame.is_empty()
-            holds = empty_end and s.births == 0
-            detail = ("the movie does not end empty" if not empty_end
-                      else f"the movie has {s.births} birth{'s' if s.births != 1 else ''}")
+            holds, detail = ribbon_shown(self.result.movie.start.is_empty(), self.frame.is_empty(), s)
         elif fact == "orientable":
             holds, detail = s.orientable, "orientable" if s.orientable else "a band makes it non-orientable"
         elif fact == "genus":
@@ -398,9 +400,37 @@ class _Replay:
         else:  # pragma: no cover
             raise AssertionError(fact)
         self.result.claims.append((fact, value, holds, detail))
-        if not holds:
-            said = fact if value is None else f"{fact} {value}"
+        said = fact if value is None else f"{fact} {value}"
+        if holds is None:
+            self.find("unproved", statement, f"the surface is claimed to be {said}: not shown by this movie", detail,
+                      step=None)
+        elif not holds:
             self.find("false", statement, f"the surface is claimed to be {said}", detail, step=None)
+
+
+def ribbon_shown(start_empty: bool, end_empty: bool, surface: Surface) -> tuple[bool | None, str]:
+    """Whether the movie shows its surface to be ribbon in the 4-ball: True, or None (not shown).
+
+    A surface in B⁴ is ribbon when the distance from the centre has no local maxima on it. A
+    movie from a link to nothing shows that when it has no births (read inward, a birth is a
+    local maximum); one from nothing to a link, when it has no deaths. A movie with births may
+    still draw a surface isotopic to a ribbon one, so this is never a contradiction.
+
+    >>> from movies.surface.tracker import surface_of, Transition
+    >>> ribbon_shown(False, True, surface_of([1], [Transition("death", ended=(1,), deaths=1)]))
+    (True, 'no births: the movie read inward has no local maxima')
+    """
+    if surface.blowups:
+        return None, "the surface passes through blow-ups, not the 4-ball"
+    if start_empty == end_empty:
+        return None, "ribbon is said of a surface in the 4-ball: a movie from a link to nothing or from nothing to a link"
+    if end_empty:
+        if surface.births == 0:
+            return True, "no births: the movie read inward has no local maxima"
+        return None, f"the movie has {_count(surface.births, 'birth')} (local maxima read inward)"
+    if surface.deaths == 0:
+        return True, "no deaths: the movie read outward has no local maxima"
+    return None, f"the movie has {_count(surface.deaths, 'death')} (local maxima read outward)"
 
 
 def _count(n: int, word: str) -> str:
@@ -415,13 +445,14 @@ def _shape(s: Surface) -> str:
     return "; ".join(parts) if parts else "empty"
 
 
-def check_movie(movie: Movie, budget: float = search.DEFAULT_BUDGET, bounds: bool = True) -> CheckResult:
+def check_movie(movie, budget: float = search.DEFAULT_BUDGET, bounds: bool = True) -> CheckResult:
     """Replay a movie and judge it.
 
     Parameters
     ----------
-    movie : Movie
-        From :func:`movies.language.movie.parse_movie`.
+    movie : str, os.PathLike or Movie
+        The movie's text, a path to a movie file, or a movie from
+        :func:`movies.language.movie.parse_movie` (see :func:`movies.language.files.read_movie`).
     budget : float
         Seconds each search (simplify steps, isotopy claims) may take, unless the movie sets
         its own with ``budget N seconds``.
@@ -432,5 +463,10 @@ def check_movie(movie: Movie, budget: float = search.DEFAULT_BUDGET, bounds: boo
     -------
     CheckResult
         Its ``verdict`` is ``verified``, ``conditional``, ``contradicted`` or ``invalid``.
+
+    >>> check_movie("start unknot\\ndeath 1\\nsurface disk").verdict
+    'verified'
+    >>> check_movie("examples/movies/trefoil-concordance.movie").verdict
+    'verified'
     """
-    return _Replay(movie, budget, bounds).run()
+    return _Replay(read_movie(movie), budget, bounds).run()

@@ -10,7 +10,7 @@
 from __future__ import annotations
 
 from movies.bounds.verdicts import surface_ambient
-from movies.checker.replay import REFUTED, VERDICT_MEANING, CheckResult
+from movies.checker.replay import REFUTED, VERDICT_MEANING, CheckResult, ribbon_shown
 
 
 def _frame(diagram) -> dict:
@@ -63,7 +63,7 @@ def as_json(result: CheckResult) -> dict:
             "orientable": s.orientable,
             "oriented_by_start": s.oriented_by_start,
             "orientation_broken_at_step": None if s.orientation_broken_at is None else s.orientation_broken_at + 1,
-            "ribbon": result.frames[-1].is_empty() and s.births == 0,
+            "ribbon": ribbon_shown(result.movie.start.is_empty(), result.frames[-1].is_empty(), s)[0],
             "connected": s.connected,
             "every_component_meets_start": s.every_component_meets_start,
             "every_component_meets_end": s.every_component_meets_end,
@@ -168,16 +168,20 @@ def surface_lines(data: dict) -> list[str]:
             )
         lines.append(f"         every component meets the start: {'yes' if s['every_component_meets_start'] else 'no'}; "
                      f"the end: {'yes' if s['every_component_meets_end'] else 'no'}")
-        if data["end"]["components"] == 0:
-            lines.append(f"         ribbon (no births): {'yes' if s['ribbon'] else 'no'}")
+        if s["ribbon"]:
+            lines.append("         ribbon: yes (no local maxima)")
+        elif (data["start"]["components"] == 0) != (data["end"]["components"] == 0) and not s["blowups"]:
+            lines.append("         ribbon: not shown by this movie (it has local maxima)")
         for claim in s["claims"]:
-            lines.append(f"  claim  surface {claim['claim']}: {'holds' if claim['holds'] else 'FALSE'} ({claim['detail']})")
+            verdict = {True: "holds", False: "FALSE", None: "UNPROVED"}[claim["holds"]]
+            lines.append(f"  claim  surface {claim['claim']}: {verdict} ({claim['detail']})")
     if "s" in data:
         lines.append("")
         for end in ("start", "end"):
             values = data["s"].get(end)
             shown = ", ".join(f"{v} over {f}" for f, v in values.items())
-            lines.append(f"s        {end}: {shown}")
+            empty = "   (the empty link)" if data[end]["components"] == 0 else ""
+            lines.append(f"s        {end}: {shown}{empty}")
         for bound in data["bounds"]:
             verdict = "holds" if bound["holds"] else "FAILS"
             tight = ", an equality" if bound["tight"] else ""

@@ -24,6 +24,7 @@ class Simplified:
     diagram: Diagram
     reached: bool
     moves: tuple[str, ...]
+    why: str = ""  # why the search stopped short of its target (empty when it reached it)
 
 
 @dataclass(frozen=True)
@@ -31,6 +32,25 @@ class Certification:
     certified: bool
     moves: tuple[str, ...] = ()
     components: dict = field(default_factory=dict)  # component of the frame -> component of the claim
+    why: str = ""  # why no certificate was found
+
+
+def stop_reason(stopped: str | None, budget: float) -> str:
+    """Why a search stopped without reaching its target, in the report's words.
+
+    >>> stop_reason("seconds", 5.0)
+    "it ran out of time (5 seconds; raise it with --budget or a 'budget N seconds' statement)"
+    >>> stop_reason("exhausted", 5.0)
+    'no sequence of Reidemeister moves within its bounds reaches it (it adds at most a few crossings before removing them)'
+    """
+    shown = f"{budget:g}"
+    if stopped == "seconds":
+        return f"it ran out of time ({shown} seconds; raise it with --budget or a 'budget N seconds' statement)"
+    if stopped == "moves":
+        return (f"it tried all {_budget(budget).moves} moves its budget of {shown} seconds allows "
+                f"(raise it with --budget or a 'budget N seconds' statement)")
+    return ("no sequence of Reidemeister moves within its bounds reaches it "
+            "(it adds at most a few crossings before removing them)")
 
 
 def describe_target(target: dict) -> str:
@@ -87,7 +107,8 @@ def simplify_frame(frame: Diagram, target: dict, budget: float) -> Simplified:
     from movies.diagram import simplify as engine
 
     result = engine.simplify(frame, target=goal, budget=_budget(budget))
-    return Simplified(result.diagram, bool(result.reached), tuple(statement_text(m) for m in result.moves))
+    why = "" if result.reached else stop_reason(result.stopped, budget)
+    return Simplified(result.diagram, bool(result.reached), tuple(statement_text(m) for m in result.moves), why)
 
 
 def certify(frame: Diagram, claimed: Diagram, budget: float) -> Certification:
@@ -96,10 +117,12 @@ def certify(frame: Diagram, claimed: Diagram, budget: float) -> Certification:
         match = isomorphism(frame, candidate)
         if match is not None:
             return Certification(True, (), dict(match["components"]))
-    from movies.diagram import simplify as engine
+    from movies.diagram.simplify.certify import certify_within
+    from movies.diagram.simplify.search import Meter
 
-    certificate = engine.certify_isotopy(frame, claimed, budget=_budget(budget))
+    meter = Meter(_budget(budget))
+    certificate = certify_within(frame, claimed, meter)
     if certificate is None:
-        return Certification(False)
+        return Certification(False, why=stop_reason(meter.stopped, budget))
     return Certification(True, tuple(statement_text(m) for m in certificate.moves),
                          dict(certificate.names["components"]))

@@ -18,6 +18,7 @@ import sys
 from typing import Sequence
 
 from movies.errors import InputError, MoviesError
+from movies.language.files import read_text
 
 EXIT_OK = 0
 EXIT_NOT_VERIFIED = 1
@@ -126,6 +127,9 @@ def build_parser() -> argparse.ArgumentParser:
     frm.add_argument("file", metavar="FILE", help="the movie file")
     frm.add_argument("--at", type=int, metavar="N", default=None, help="the step (default: the last frame)")
     frm.add_argument("--budget", type=float, metavar="SECONDS", default=None, help="as for check")
+    frm.add_argument("--json", action="store_true", help="print the frame's names as one JSON object")
+    frm.add_argument("--svg", metavar="OUT.svg", help="also draw the frame, with every name, as an SVG file")
+    frm.add_argument("--png", metavar="OUT.png", help="also draw the frame, with every name, as a PNG file")
     frm.set_defaults(run=_run_frames)
     return parser
 
@@ -188,17 +192,6 @@ def _run_invariants(args: argparse.Namespace) -> int:
     else:
         print(invariants_text(label, facts))
     return EXIT_OK
-
-
-def read_text(path: str) -> str:
-    """A file's text, or an InputError that says why it cannot be read."""
-    try:
-        with open(path, encoding="utf-8") as handle:
-            return handle.read()
-    except OSError as err:
-        raise InputError(f"cannot read {path}: {err.strerror}") from None
-    except UnicodeDecodeError:
-        raise InputError(f"cannot read {path}: it is not UTF-8 text") from None
 
 
 def _read_movie(path: str):
@@ -298,8 +291,21 @@ def _run_frames(args: argparse.Namespace) -> int:
         stop = " (the movie stops at an invalid step)" if not result.complete else ""
         raise InputError(f"there is no frame after step {at}: the frames run from 0 to {last}{stop}")
     heading = "the first frame" if at == 0 else f"the frame after step {at} ({result.steps[at - 1].source})"
-    print(heading)
-    print(result.frames[at].summary())
+    frame = result.frames[at]
+    if args.svg or args.png:
+        from movies.draw import diagram_svg
+
+        svg = diagram_svg(frame, labels=True, title=heading)
+        if args.svg:
+            _write(args.svg, svg)
+        if args.png:
+            svg_to_png(svg, args.png)
+    if args.json:
+        print(json.dumps({"file": args.file, "at": at, "frames": last + 1, "heading": heading,
+                          "step": None if at == 0 else result.steps[at - 1].source, **frame.as_data()}))
+    else:
+        print(heading)
+        print(frame.summary())
     return EXIT_OK
 
 

@@ -28,12 +28,12 @@ def polynomial_text(terms: list[list], variable: str = "t") -> str:
 
     >>> polynomial_text([[1, 1], [3, 1], [4, -1]])
     't + t^3 - t^4'
-    >>> polynomial_text([[-0.5, -1], [0.5, -1]])
+    >>> polynomial_text([["-1/2", -1], ["1/2", -1]])
     '-t^(-1/2) - t^(1/2)'
     >>> polynomial_text([])
     '0'
     """
-    exact = {Fraction(exponent).limit_denominator(2): coefficient for exponent, coefficient in terms}
+    exact = {Fraction(exponent): coefficient for exponent, coefficient in terms}
     return str(LaurentPolynomial(exact, variable=variable))
 
 

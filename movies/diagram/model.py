@@ -464,6 +464,27 @@ class Diagram:
         return "\n".join(lines)
 
 
+    def as_data(self) -> dict:
+        """Every name as plain JSON-ready data: what :meth:`summary` lists, for scripts.
+
+        Faces list one boundary cycle per split piece they touch, each side as the edge and the
+        hand (``L``/``R``) on which the face lies.
+
+        >>> from movies.diagram.pd import from_pd
+        >>> data = from_pd([[4, 1, 3, 2], [2, 3, 1, 4]]).as_data()
+        >>> data["crossings"][0], data["components"][1], data["faces"][0]
+        ({'name': 1, 'pd': [4, 1, 3, 2], 'sign': -1}, {'name': 2, 'edges': [3, 4], 'circle': False}, {'name': 1, 'boundary': [['1L', '4R']]})
+        """
+        return {
+            "crossings": [{"name": name, "pd": list(self.crossings[name]), "sign": self.signs[name]}
+                          for name in sorted(self.crossings)],
+            "components": [{"name": name, "edges": list(self.components[name]),
+                            "circle": self.components[name][0] in self.loops} for name in sorted(self.components)],
+            "faces": [{"name": name, "boundary": [[repr(side) for side in cycle] for cycle in self.faces[name]]}
+                      for name in sorted(self.faces)],
+        }
+
+
 # ---------------------------------------------------------------------- assembling diagrams
 
 

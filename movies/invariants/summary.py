@@ -18,18 +18,21 @@ from movies.invariants.jones import jones_polynomial
 from movies.invariants.signature import signature
 
 
-def exponent_json(exponent: Fraction) -> int | float:
-    """An exponent for JSON: an int when whole, else the exact half (a binary fraction).
+def exponent_json(exponent: Fraction) -> int | str:
+    """An exponent for JSON, exact: an int when whole, else a string such as ``"-3/2"``.
 
-    >>> exponent_json(Fraction(3)), exponent_json(Fraction(-1, 2))
-    (3, -0.5)
+    JSON has no exact fractions and the program writes no floating point; ``Fraction(e)``
+    reads both forms back.
+
+    >>> exponent_json(Fraction(3)), exponent_json(Fraction(-3, 2))
+    (3, '-3/2')
+    >>> Fraction(exponent_json(Fraction(-3, 2)))
+    Fraction(-3, 2)
     """
     exponent = Fraction(exponent)
     if exponent.denominator == 1:
         return int(exponent)
-    if exponent.denominator == 2:
-        return exponent.numerator / 2
-    raise ValueError(f"exponent {exponent} is not a half-integer")  # pragma: no cover
+    return f"{exponent.numerator}/{exponent.denominator}"
 
 
 def polynomial_terms(polynomial) -> list[list]:
