@@ -35,3 +35,14 @@ def test_an_unproved_isotopy_claim_gives_its_reason_first():
     (finding,) = data["findings"]
     assert finding["kind"] == "unproved" and "the search found no Reidemeister moves between them: " in finding["evidence"]
     assert "UNPROVED: the search found no Reidemeister moves" in as_text(data, "demo")
+
+
+def test_an_unproved_checkpoint_gives_its_reason():
+    knot = parse_diagram("8_20 # mirror(8_20)")
+    hard, _ = scramble(knot, 30, seed=1)
+    code = [list(hard.crossings[c]) for c in sorted(hard.crossings)]
+    text = f"start 8_20 # mirror(8_20)\nbudget 1 seconds\nexpect isotopic to pd{code}"
+    data = as_json(check_movie(parse_movie(text), bounds=False))
+    (check,) = data["checkpoints"]
+    assert check["outcome"] == "unproved"
+    assert check["detail"].startswith("the search found no Reidemeister moves between them: ")

@@ -357,8 +357,9 @@ class _Replay:
                 self.result.checkpoints.append((statement, "false", f"they differ in {difference}"))
                 self.find("false", statement, f"the frame {here} is not {label}", f"they differ in {difference}")
             else:
-                self.result.checkpoints.append((statement, "unproved", "every invariant agrees"))
-                self.find("unproved", statement, f"the frame {here} being {label} is unproved", "every invariant agrees")
+                why = f"the search found no Reidemeister moves between them: {outcome.why}; every invariant agrees"
+                self.result.checkpoints.append((statement, "unproved", why))
+                self.find("unproved", statement, f"the frame {here} being {label} is unproved", why)
         else:
             compute = {"signature": signature, "writhe": lambda d: d.writhe(), "determinant": determinant,
                        "jones": jones_polynomial, "alexander": alexander_polynomial}[what]
