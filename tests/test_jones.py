@@ -20,8 +20,8 @@ from movies.invariants.jones import (
     jones_polynomial_pd,
     kauffman_bracket,
     kauffman_bracket_pd,
-    scan_order,
 )
+from movies.diagram.scan_order import scan_order
 
 A = LP.monomial(1, variable="A")
 D = -(A**2) - A**-2

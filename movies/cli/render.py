@@ -131,11 +131,11 @@ def blown_up_lines(first: str, second: str, answer) -> list[str]:
     place, shape = answer.place, answer.shapes[0]
     klass = ", ".join(map(str, place.homology_class))
     if second == "empty":
-        what = (f"a null-homologous disk" if answer.genus == 0 and place.null_homologous
+        what = ("a null-homologous disk" if answer.genus == 0 and place.null_homologous
                 else f"a connected surface of genus {answer.genus} in the class ({klass})")
         where = f"{first} bounding {what} in {place.name} (punctured, {place.definite})"
     else:
-        what = (f"a null-homologous annulus" if answer.genus == 0 and place.null_homologous
+        what = ("a null-homologous annulus" if answer.genus == 0 and place.null_homologous
                 else f"a connected cobordism of genus {answer.genus} in the class ({klass})")
         where = f"{what} from {first} to {second} in {place.name} ({place.definite})"
     lines = [f"  s: first {_fields(answer.s['first'])}; second {_fields(answer.s['second'])}",

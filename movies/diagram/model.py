@@ -37,6 +37,7 @@ from functools import cached_property
 from typing import Iterable, Mapping, NamedTuple
 
 from movies.errors import DiagramError
+from movies.unionfind import UnionFind
 
 #: position of a crossing's incoming under-strand, the other positions follow counterclockwise
 UNDER_IN, UNDER_OUT = 0, 2
@@ -267,7 +268,7 @@ class Diagram:
 
     @cached_property
     def _pieces(self) -> tuple[frozenset[int], ...]:
-        uf = _UnionFind()
+        uf = UnionFind()
         for edge in self.edges():
             uf.find(edge)
         for labels in self.crossings.values():
@@ -551,23 +552,6 @@ def trace_components(
     return sorted(result)
 
 
-class _UnionFind:
-    def __init__(self) -> None:
-        self.parent: dict[int, int] = {}
-
-    def find(self, x: int) -> int:
-        self.parent.setdefault(x, x)
-        while self.parent[x] != x:
-            self.parent[x] = self.parent[self.parent[x]]
-            x = self.parent[x]
-        return x
-
-    def union(self, x: int, y: int) -> None:
-        rx, ry = self.find(x), self.find(y)
-        if rx != ry:
-            self.parent[max(rx, ry)] = min(rx, ry)
-
-
 @dataclass
 class Hints:
     """What a move tells :func:`assemble` about faces that the combinatorics alone cannot.
@@ -672,7 +656,7 @@ def check_regions(diagram: Diagram) -> None:
         raise DiagramError("the faces do not match the diagram's boundary cycles")
     pieces = diagram.pieces()
     piece_of = {edge: i for i, piece in enumerate(pieces) for edge in piece}
-    uf = _UnionFind()
+    uf = UnionFind()
     for name, region in diagram.faces.items():
         touching = [piece_of[cycle[0].edge] for cycle in region]
         if len(set(touching)) != len(touching):
@@ -727,7 +711,7 @@ def _inherit_faces(previous: Diagram, cycles, hints: Hints, crossings, signs, lo
     old_side_face = previous.side_face
     old_cycles = {cycle for region in previous.faces.values() for cycle in region}
     old_face_of_cycle = {cycle: name for name, region in previous.faces.items() for cycle in region}
-    uf = _UnionFind()
+    uf = UnionFind()
     for name in previous.faces:
         uf.find(name)
     sources: dict[tuple[Side, ...], set[int]] = {}
@@ -804,7 +788,7 @@ def _smallest_old_side(cycle, old_face_of) -> tuple:
 
 def _inherit_components(previous: Diagram, components, hints: Hints):
     old_edge_component = previous.edge_component
-    uf = _UnionFind()
+    uf = UnionFind()
     for a, b in hints.joined:
         uf.union(a, b)
     found_of = []

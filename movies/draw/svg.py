@@ -16,7 +16,7 @@ the point. Crossingless circles are closed paths. One colour per component, from
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 from html import escape
 
 from movies.diagram.model import Diagram, Side

@@ -28,6 +28,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from fractions import Fraction
 
+from movies.diagram.scan_order import scan_order
 from movies.diagram.model import Diagram
 from movies.homology.errors import HomologyError
 from movies.homology.rings import Ring, parse_field
@@ -102,7 +103,6 @@ def canonical_complex(diagram: Diagram, progress=None) -> CanonicalComplex:
     >>> hopf.q, len(hopf.cycle) > 0
     (0, True)
     """
-    from movies.homology.khovanov import _order  # the scan order the engine uses everywhere
 
     if not diagram.crossings or diagram.loops:
         raise HomologyError("the canonical class is carried through diagrams whose every circle has a crossing")
@@ -111,7 +111,7 @@ def canonical_complex(diagram: Diagram, progress=None) -> CanonicalComplex:
     colour = checkerboard(diagram)
     minus_h = frozenset(edge for edge in diagram.edges() if colour[diagram.faces_beside(edge)[0]])
     chain = CarriedClass(smoothing, minus_h)
-    cx = scan_complex(pd, Ring("Z", 0), _order(pd), progress, carried=[chain])
+    cx = scan_complex(pd, Ring("Z", 0), scan_order(pd), progress, carried=[chain])
     n_plus = sum(1 for s in diagram.signs.values() if s > 0)
     n_minus = len(diagram.signs) - n_plus
     final = finish(cx, n_plus, n_minus)

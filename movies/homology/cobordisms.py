@@ -27,6 +27,8 @@ and d dots is X for d >= 1 and e + (-1)^g f otherwise, pushed to its b circles b
 
 from __future__ import annotations
 
+from movies.unionfind import partition_roots
+
 __all__ = ["components", "component_terms", "compose", "compose_morphisms", "h_power"]
 
 _components_cache: dict = {}
@@ -167,24 +169,8 @@ def _geometry(mx: tuple, m: tuple, my: tuple):
     cd, compd = components(mx, m)
     cg, compg = components(m, my)
     co, compo = components(mx, my)
-    parent = list(range(cd + cg))
-
-    def find(x):
-        while parent[x] != x:
-            parent[x] = parent[parent[x]]
-            x = parent[x]
-        return x
-
-    edges = 0
     n = len(m)
-    for p in range(n):
-        q = m[p]
-        if p < q:
-            edges += 1
-            a, b = find(compd[p]), find(cd + compg[p])
-            if a != b:
-                parent[a] = b
-    roots = [find(x) for x in range(cd + cg)]
+    roots = partition_roots(cd + cg, [(compd[p], cd + compg[p]) for p in range(n) if p < m[p]])
     # boundary circles: components of mx ∪ my; circle k contains its smallest point
     circles_of: dict[int, list[int]] = {}
     first = [-1] * co

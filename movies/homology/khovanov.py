@@ -28,6 +28,7 @@ from __future__ import annotations
 
 from typing import Callable
 
+from movies.diagram.scan_order import scan_order
 from movies.diagram.model import Diagram
 from movies.homology.errors import FieldError, HomologyError, NotAKnotError
 from movies.homology.graded import bar_natan_module, khovanov_integral, khovanov_ranks
@@ -59,12 +60,6 @@ def _signs(d: Diagram) -> tuple[int, int]:
     return n_plus, n - n_plus
 
 
-def _order(pd: list) -> list:
-    from movies.invariants.jones import scan_order
-
-    return scan_order(pd) if pd else []
-
-
 def _with_loops(final: FinalComplex, loops: int) -> FinalComplex:
     """Tensor with ∅{+1} ⊕ ∅{-1} once for each crossingless circle."""
     gens, entries = final.generators, final.entries
@@ -91,7 +86,7 @@ def bar_natan_complex(diagram, field: str = "Z", progress: Progress | None = Non
         ring = Ring("Z", 0)
     pd = [tuple(c) for c in d.pd_code()]
     n_plus, n_minus = _signs(d)
-    cx = scan_complex(pd, ring, _order(pd), progress)
+    cx = scan_complex(pd, ring, scan_order(pd), progress)
     return _with_loops(finish(cx, n_plus, n_minus), d.loop_count())
 
 
@@ -107,7 +102,7 @@ def _reduced_complex(d: Diagram, ring: Ring, basepoint, progress) -> FinalComple
     if basepoint is not None and basepoint not in labels:
         raise HomologyError(f"the basepoint {basepoint!r} is not an edge through a crossing "
                             f"(edges: {labels})")
-    order = _order(pd)
+    order = scan_order(pd)
     # A basepoint may slide along its component without changing reduced homology; the cut
     # edge stays on the boundary to the end, so put it at the last crossing of the scan.
     last = pd[order[-1]]

@@ -33,8 +33,10 @@ from __future__ import annotations
 import heapq
 from dataclasses import dataclass, field
 
+from movies.diagram.scan_order import scan_order
 from movies.homology.cobordisms import components, compose_morphisms, expand
 from movies.homology.rings import Ring
+from movies.unionfind import partition_roots
 
 __all__ = ["FinalComplex", "CarriedClass", "Complex", "add_crossing", "scan_complex", "scan", "finish", "RING_Z"]
 
@@ -359,19 +361,7 @@ class _Step:
         """
         link = self.link
         size = len(top)
-        parent = list(range(pieces))
-
-        def find(x):
-            while parent[x] != x:
-                parent[x] = parent[parent[x]]
-                x = parent[x]
-            return x
-
-        for p, r in self.glue:
-            a, b = find(piece[p]), find(piece[r])
-            if a != b:
-                parent[a] = b
-        roots = [find(x) for x in range(pieces)]
+        roots = partition_roots(pieces, [(piece[p], piece[r]) for p, r in self.glue])
         chi: dict[int, int] = {}
         for r in roots:
             chi[r] = chi.get(r, 0) + 1
@@ -596,7 +586,7 @@ def scan(pd, ring: Ring, order=None, progress=None, n_plus=None, n_minus=None) -
 
     Parameters: ``pd``, a list of PD 4-tuples (a closed diagram, every label twice);
     ``ring``, the ground ring; ``order``, the order of crossing indices (default: the
-    boundary-keeping greedy order of :func:`movies.invariants.jones.scan_order`); ``progress``,
+    boundary-keeping greedy order of :func:`movies.diagram.scan_order.scan_order`); ``progress``,
     called with (crossings added, total) after each crossing; ``n_plus``/``n_minus`` the numbers
     of positive and negative crossings (default: computed from the code).
     Returns the final complex with the shifts ``[-n_-]{n_+ - 2 n_-}`` applied.
@@ -613,8 +603,6 @@ def scan(pd, ring: Ring, order=None, progress=None, n_plus=None, n_minus=None) -
         n_plus = sum(1 for s in signs if s > 0)
         n_minus = len(signs) - n_plus
     if order is None:
-        from movies.invariants.jones import scan_order
-
         order = scan_order(pd) if pd else []
     return finish(scan_complex(pd, ring, order, progress), n_plus, n_minus)
 

@@ -38,6 +38,7 @@ from fractions import Fraction
 
 from movies.algebra.laurent import LaurentPolynomial
 from movies.errors import DiagramError, PDCodeError
+from movies.diagram.scan_order import checked_pd, connected_pieces, piece_order
 
 __all__ = [
     "EmptyDiagramError",
@@ -45,7 +46,6 @@ __all__ = [
     "jones_polynomial_pd",
     "kauffman_bracket",
     "jones_polynomial",
-    "scan_order",
 ]
 
 
@@ -63,151 +63,11 @@ _ARC_B = (3, 2, 1, 0)  # a-d, b-c
 
 
 # ------------------------------------------------------------------------------------- checking
-def _check_pd(pd) -> list:
-    """The PD code as a list of 4-tuples; PDCodeError unless every label occurs exactly twice."""
-    if isinstance(pd, (str, bytes)):
-        raise PDCodeError("a PD code is a list of crossings, not a string")
-    crossings = []
-    try:
-        items = list(pd)
-    except TypeError:
-        raise PDCodeError(f"PD code {pd!r} is not a list of crossings") from None
-    for i, c in enumerate(items):
-        try:
-            t = tuple(c)
-        except TypeError:
-            raise PDCodeError(f"crossing {i} ({c!r}) is not a list of four edge labels") from None
-        if len(t) != 4:
-            raise PDCodeError(f"crossing {i} ({list(t)!r}) has {len(t)} edge labels, not 4")
-        crossings.append(t)
-    count: dict = {}
-    for i, t in enumerate(crossings):
-        for label in t:
-            try:
-                count[label] = count.get(label, 0) + 1
-            except TypeError:
-                raise PDCodeError(f"edge label {label!r} of crossing {i} is not hashable") from None
-    for label, k in count.items():
-        if k != 2:
-            raise PDCodeError(
-                f"edge label {label!r} occurs {k} time(s) in the PD code; every edge label must "
-                "occur exactly twice"
-            )
-    return crossings
-
-
 def _check_loops(loops) -> int:
     if isinstance(loops, bool) or not isinstance(loops, int) or loops < 0:
         raise PDCodeError(f"loops must be a non-negative integer, not {loops!r}")
     return loops
 
-
-def _pieces(crossings: list) -> list:
-    """The connected pieces (lists of crossing indices, each sorted, ordered by first index)."""
-    n = len(crossings)
-    parent = list(range(n))
-
-    def find(x):
-        while parent[x] != x:
-            parent[x] = parent[parent[x]]
-            x = parent[x]
-        return x
-
-    first: dict = {}
-    for i, c in enumerate(crossings):
-        for label in c:
-            j = first.setdefault(label, i)
-            ri, rj = find(i), find(j)
-            if ri != rj:
-                parent[max(ri, rj)] = min(ri, rj)
-    groups: dict = {}
-    for i in range(n):
-        groups.setdefault(find(i), []).append(i)
-    return [groups[r] for r in sorted(groups)]
-
-
-# ------------------------------------------------------------------------------------- ordering
-def _neighbours(cross: list) -> list:
-    """nb[i][s] = index of the crossing holding the other end of edge cross[i][s]."""
-    seen: dict = {}
-    nb = [[-1] * 4 for _ in cross]
-    for i, c in enumerate(cross):
-        for s, label in enumerate(c):
-            if label in seen:
-                j, t = seen.pop(label)
-                nb[i][s] = j
-                nb[j][t] = i
-            else:
-                seen[label] = (i, s)
-    return nb
-
-
-def _greedy_from(nb: list, start: int):
-    """Greedy order from ``start``: next the crossing with most edges on the boundary.
-
-    Ties go to the crossing whose boundary edges were opened earliest (a sweeping front), then to
-    the lowest index. Returns (order, cost) with cost = sum over steps of 2^(boundary size).
-    """
-    n = len(nb)
-    shared = [0] * n
-    age = [0] * n  # sum of the steps at which the crossing's boundary edges were opened
-    done = [False] * n
-    frontier = set()  # crossings not done with an edge on the boundary
-    order = []
-    size = 0
-    cost = 0
-    cur = start
-    for step in range(n):
-        done[cur] = True
-        frontier.discard(cur)
-        order.append(cur)
-        for j in nb[cur]:
-            if j == cur:
-                continue
-            if done[j]:
-                size -= 1
-            else:
-                size += 1
-                shared[j] += 1
-                age[j] += step
-                frontier.add(j)
-        cost += 1 << size
-        if step == n - 1:
-            break
-        cur = max(frontier, key=lambda j: (shared[j], -age[j], -j))
-    return order, cost
-
-
-def _best_order(cross: list) -> list:
-    nb = _neighbours(cross)
-    n = len(cross)
-    if n <= 24:
-        starts = range(n)
-    else:
-        k = 12
-        starts = sorted({(i * n) // k for i in range(k)})
-    best = None
-    for s in starts:
-        order, cost = _greedy_from(nb, s)
-        if best is None or cost < best[1]:
-            best = (order, cost)
-    return best[0]
-
-
-def scan_order(pd) -> list:
-    """The order (crossing indices) in which the scanner adds the crossings of ``pd``.
-
-    Pieces come one after another, each in its greedy order.
-
-    >>> scan_order([(1, 5, 2, 4), (3, 1, 4, 6), (5, 3, 6, 2)])
-    [0, 1, 2]
-    """
-    crossings = _check_pd(pd)
-    out = []
-    for piece in _pieces(crossings):
-        sub = [crossings[i] for i in piece]
-        out.extend(piece[i] for i in _best_order(sub))
-    return out
 
 
 # ------------------------------------------------------------------------------------- scanning
@@ -276,7 +136,7 @@ def _decode(value: int, bits: int) -> list:
 
 def _bracket_piece(cross: list) -> LaurentPolynomial:
     """The bracket (with <O> = 1) of one connected piece with at least one crossing."""
-    order = _best_order(cross)
+    order = piece_order(cross)
     n = len(cross)
     bits = 2 * n + 3  # every coefficient has |c| <= 4^n (at most 2^n states, <= n+1 circles each)
     two_bits = 2 * bits
@@ -382,7 +242,7 @@ def kauffman_bracket_pd(pd, loops: int = 0) -> LaurentPolynomial:
     >>> print(kauffman_bracket_pd([(4, 1, 3, 2), (2, 3, 1, 4)]))
     -A^(-4) - A^4
     """
-    crossings = _check_pd(pd)
+    crossings = checked_pd(pd)
     loops = _check_loops(loops)
     if not crossings:
         if loops == 0:
@@ -391,7 +251,7 @@ def kauffman_bracket_pd(pd, loops: int = 0) -> LaurentPolynomial:
                 "which is not a Laurent polynomial"
             )
         return _D ** (loops - 1)
-    pieces = _pieces(crossings)
+    pieces = connected_pieces(crossings)
     result = _ONE_A
     for piece in pieces:
         result = result * _bracket_piece([crossings[i] for i in piece])

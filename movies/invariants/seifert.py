@@ -48,6 +48,7 @@ from dataclasses import dataclass
 
 from movies.diagram.model import Diagram, Side, head_positions
 from movies.errors import DiagramError
+from movies.unionfind import UnionFind
 
 __all__ = [
     "FaceLoop",
@@ -85,25 +86,6 @@ class SeifertSurface:
     basis: tuple[FaceLoop, ...]
     matrix: tuple[tuple[int, ...], ...]
     pieces: int
-
-
-class _UnionFind:
-    def __init__(self) -> None:
-        self.parent: dict = {}
-
-    def find(self, x):
-        self.parent.setdefault(x, x)
-        root = x
-        while self.parent[root] != root:
-            root = self.parent[root]
-        while self.parent[x] != root:
-            self.parent[x], x = root, self.parent[x]
-        return root
-
-    def union(self, x, y) -> None:
-        rx, ry = self.find(x), self.find(y)
-        if rx != ry:
-            self.parent[max(rx, ry)] = min(rx, ry)
 
 
 def _corner_after(diagram: Diagram, side: Side) -> tuple[int, str | None] | None:
@@ -161,7 +143,7 @@ def seifert_surface(diagram: Diagram) -> SeifertSurface:
             raise DiagramError(f"the faces do not show both gaps of crossing {name}")
 
     # regions: faces joined across the gap of each crossing
-    faces_union = _UnionFind()
+    faces_union = UnionFind()
     for face in diagram.faces:
         faces_union.find(face)
     for name in diagram.crossings:
@@ -172,7 +154,7 @@ def seifert_surface(diagram: Diagram) -> SeifertSurface:
         regions.setdefault(region, []).append(face)
 
     # the two circles of each crossing, and the pieces of each region's surface
-    pieces_union = _UnionFind()
+    pieces_union = UnionFind()
     crossing_region = {}
     for name, (a, b, c, d) in diagram.crossings.items():
         over_in, _ = diagram.over_edges(name)

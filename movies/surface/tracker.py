@@ -21,8 +21,10 @@ frame component positive.
 
 from __future__ import annotations
 
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 from typing import Sequence
+
+from movies.unionfind import ParityUnionFind
 
 #: a node of the surface graph: (frame number, component name)
 Node = tuple[int, int]
@@ -139,48 +141,6 @@ class Surface:
         return all(c.boundary_end > 0 for c in self.components)
 
 
-class _Parity:
-    """Union-find that also keeps the relative sign (+1 / −1) of each node to its root."""
-
-    def __init__(self) -> None:
-        self.parent: dict[Node, Node] = {}
-        self.sign: dict[Node, int] = {}
-        self.bad: set[Node] = set()  # roots of pieces with an inconsistent sign
-
-    def add(self, node: Node) -> None:
-        if node not in self.parent:
-            self.parent[node] = node
-            self.sign[node] = 1
-
-    def find(self, node: Node) -> tuple[Node, int]:
-        path = []
-        while self.parent[node] != node:
-            path.append(node)
-            node = self.parent[node]
-        root, total = node, 1
-        for item in reversed(path):
-            total *= self.sign[item]
-            self.parent[item] = root
-            self.sign[item] = total
-        return root, (self.sign[path[0]] if path else 1)
-
-    def join(self, a: Node, b: Node, same: bool) -> bool:
-        """Join with sign(a)·sign(b) = +1 when ``same``; returns False if that contradicts."""
-        (ra, sa), (rb, sb) = self.find(a), self.find(b)
-        want = 1 if same else -1
-        if ra == rb:
-            if sa * sb != want:
-                self.bad.add(ra)
-                return False
-            return True
-        self.parent[rb] = ra
-        self.sign[rb] = sa * sb * want
-        if rb in self.bad:
-            self.bad.discard(rb)
-            self.bad.add(ra)
-        return True
-
-
 def surface_of(start: Sequence[int], transitions: Sequence[Transition]) -> Surface:
     """The surface of a movie from its first frame's components and its steps.
 
@@ -201,8 +161,8 @@ def surface_of(start: Sequence[int], transitions: Sequence[Transition]) -> Surfa
     >>> surface_of([1, 2], [Transition("band", links=((1, 1, True), (2, 1, False)), saddles=1)]).oriented_by_start
     False
     """
-    pieces = _Parity()  # connectivity and, within each piece, the orientation signs
-    tied = _Parity()  # the same, with every first-frame component tied to one positive node
+    pieces = ParityUnionFind()  # connectivity and, within each piece, the orientation signs
+    tied = ParityUnionFind()  # the same, with every first-frame component tied to one positive node
     positive: Node = (-1, 0)
     tied.add(positive)
     current = {k: (0, k) for k in start}
@@ -289,7 +249,7 @@ def surface_of(start: Sequence[int], transitions: Sequence[Transition]) -> Surfa
     )
 
 
-def _blowups(gates, pieces: _Parity, tied: _Parity, positive: Node, end_nodes: set) -> tuple[Blowup, ...]:
+def _blowups(gates, pieces: ParityUnionFind, tied: ParityUnionFind, positive: Node, end_nodes: set) -> tuple[Blowup, ...]:
     """aᵢ for each twist: strand directions times the surface's orientation sign of their component."""
     anchor: dict[Node, int] = {}  # piece root -> sign of the root, from an end node, for pieces off the start
     for node in sorted(end_nodes):

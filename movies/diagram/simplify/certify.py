@@ -32,8 +32,10 @@ from dataclasses import dataclass
 
 from movies.diagram.isotopy import canonical_form, isomorphism, reflect_and_switch
 from movies.diagram.model import Diagram, Side, canonical_cycle
-from movies.diagram.simplify.records import CHANGE, MoveRecord, apply, candidates, inverse, translate
-from movies.diagram.simplify.search import Budget, Meter, Step, _greedy, child_key, descend, undoable
+from movies.diagram.simplify.records import MoveRecord, apply, candidates, inverse, translate
+from movies.diagram.simplify.search import (
+    Budget, Meter, Step, _greedy, child_key, descend, undoable,
+)
 from movies.errors import DiagramError, MoveError
 
 __all__ = ["IsotopyCertificate", "certify_isotopy", "rename"]

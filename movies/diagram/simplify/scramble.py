@@ -11,7 +11,7 @@ from __future__ import annotations
 import random
 
 from movies.diagram.model import Diagram
-from movies.diagram.simplify.records import MoveRecord, apply, candidates, replay
+from movies.diagram.simplify.records import MoveRecord, apply, candidates
 
 __all__ = ["scramble"]
 
