@@ -20,7 +20,7 @@ from movies.diagram.tables import table_names
 from movies.errors import MoveError
 from movies.language.movie import parse_movie
 from movies.language.spec import parse_diagram
-from movies.surface.tracker import Blowup, Transition, surface_of
+from movies.surface.tracker import Blowup, surface_of
 
 
 def _corner(d, crossing, antiparallel):

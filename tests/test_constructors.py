@@ -22,7 +22,8 @@ from movies.diagram.constructors import (
     unlink,
 )
 from movies.diagram.isotopy import same_on_sphere
-from movies.diagram.model import Side, assemble, trace_cycles
+from movies.diagram.assembly import assemble, trace_cycles
+from movies.diagram.model import Side
 from movies.diagram.pd import from_pd
 from movies.diagram.tables import table_names, table_row
 from movies.errors import BraidError, DiagramError, TableError

@@ -18,7 +18,8 @@ from movies.diagram.isotopy import (
     same_on_sphere,
     same_up_to_reflection,
 )
-from movies.diagram.model import Diagram, Side, canonical_cycle, trace_cycles
+from movies.diagram.assembly import canonical_cycle, trace_cycles
+from movies.diagram.model import Diagram, Side
 from movies.diagram.pd import from_pd
 from movies.diagram.tables import lookup, table_names, table_row
 from movies.errors import DiagramError, MoviesError

@@ -13,17 +13,8 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 from support.sphere import check_on_sphere
-from movies.diagram.model import (
-    Dart,
-    Diagram,
-    Side,
-    assemble,
-    canonical_cycle,
-    head_positions,
-    reencode,
-    trace_components,
-    trace_cycles,
-)
+from movies.diagram.assembly import assemble, canonical_cycle, reencode, trace_components, trace_cycles
+from movies.diagram.model import Dart, Diagram, Side, head_positions
 from movies.diagram.pd import crossing_signs, from_pd
 from movies.errors import DiagramError
 from support.knotinfo_columns import parse_braids, parse_matrix

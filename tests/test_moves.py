@@ -17,20 +17,10 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 from support.sphere import check_on_sphere
-from movies.diagram.model import Dart, Diagram, Side, assemble, canonical_cycle
+from movies.diagram.assembly import assemble
+from movies.diagram.model import Diagram, Side
 from movies.diagram.moves import (
-    NewNames,
-    SaddleResult,
-    birth,
-    common_faces,
-    death,
-    kinks_at,
-    r1_add,
-    r1_remove,
-    r2_add,
-    r2_remove,
-    r3,
-    saddle,
+    NewNames, SaddleResult, birth, common_faces, death, kinks_at, r1_add, r1_remove, r2_add, r2_remove, r3, saddle,
 )
 from movies.diagram.pd import from_pd
 from movies.errors import MoveError

@@ -20,7 +20,8 @@ from support.crossings import switched
 from support.sphere import check_on_sphere
 from movies.diagram.constructors import from_braid, reverse, torus_link, unknot, unlink
 from movies.diagram.isotopy import canonical_form, same_on_sphere
-from movies.diagram.model import Diagram, Side, assemble, check_regions
+from movies.diagram.assembly import assemble, check_regions
+from movies.diagram.model import Diagram, Side
 from movies.diagram.moves import NewNames, TwistResult, birth, r2_remove, twist
 from movies.diagram.pd import from_pd
 from movies.diagram.tables import table_names

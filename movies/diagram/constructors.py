@@ -26,7 +26,9 @@ from __future__ import annotations
 
 from typing import Iterable, Sequence
 
-from movies.diagram.model import Diagram, Side, assemble, canonical_cycle, reencode, trace_cycles
+from movies.diagram.assembly import assemble, canonical_cycle, reencode, trace_cycles
+
+from movies.diagram.model import Diagram, Side
 from movies.diagram.moves import saddle
 from movies.diagram.pd import from_pd
 from movies.diagram.tables import lookup

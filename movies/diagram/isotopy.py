@@ -36,7 +36,9 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from movies.diagram.model import Diagram, Side, canonical_cycle, head_positions
+from movies.diagram.assembly import canonical_cycle
+
+from movies.diagram.model import Diagram, Side, head_positions
 from movies.errors import DiagramError
 
 __all__ = [

@@ -22,7 +22,9 @@ from __future__ import annotations
 from collections import Counter
 from typing import Iterable, Sequence
 
-from movies.diagram.model import Diagram, DiagramError, assemble
+from movies.diagram.assembly import assemble
+
+from movies.diagram.model import Diagram, DiagramError
 from movies.errors import PDCodeError
 
 

@@ -18,7 +18,9 @@ at q = s − 1 and s + 1, as for knots.
 
 from __future__ import annotations
 
-from movies.diagram.model import Diagram, assemble
+from movies.diagram.assembly import assemble
+
+from movies.diagram.model import Diagram
 from movies.homology.canonical import canonical_complex, s_from_canonical
 from movies.homology.errors import FieldError
 from movies.homology.graded import bar_natan_module

@@ -13,7 +13,6 @@ from __future__ import annotations
 import os
 import platform
 import statistics
-import sys
 import time
 from datetime import date
 from pathlib import Path

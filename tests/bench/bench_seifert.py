@@ -23,7 +23,6 @@ import platform
 import statistics
 import sys
 import time
-from fractions import Fraction
 from pathlib import Path
 
 ROOT = Path(__file__).resolve().parents[2]

@@ -1,6 +1,8 @@
 """Switching one crossing of a diagram, for tests that compare a diagram with its switch."""
 
-from movies.diagram.model import Diagram, assemble
+from movies.diagram.assembly import assemble
+
+from movies.diagram.model import Diagram
 
 
 def switched(d: Diagram, crossing: int) -> Diagram:

@@ -2,7 +2,9 @@
 
 import networkx as nx
 
-from movies.diagram.model import Dart, Diagram, Side, canonical_cycle
+from movies.diagram.assembly import canonical_cycle
+
+from movies.diagram.model import Dart, Diagram, Side
 
 
 def check_on_sphere(d: Diagram) -> Diagram:

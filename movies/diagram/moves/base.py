@@ -9,7 +9,9 @@ from __future__ import annotations
 import functools
 from dataclasses import dataclass
 
-from movies.diagram.model import Dart, Diagram, Hints, NameInUseError, Side, assemble
+from movies.diagram.assembly import Hints, NameInUseError, assemble
+
+from movies.diagram.model import Dart, Diagram, Side
 from movies.errors import DiagramError, MoveError
 
 

@@ -9,7 +9,9 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from movies.diagram.model import Diagram, Hints, Side, reencode
+from movies.diagram.assembly import Hints, reencode
+
+from movies.diagram.model import Diagram, Side
 from movies.errors import MoveError
 from movies.diagram.moves.base import (
     NewNames, _Namer, _move, _rebuild, _check_edge, _side_in_face, _relabel_dart,

@@ -9,7 +9,9 @@ from __future__ import annotations
 
 from typing import Sequence
 
-from movies.diagram.model import Dart, Diagram, Hints, Side, reencode, trace_cycles
+from movies.diagram.assembly import Hints, reencode, trace_cycles
+
+from movies.diagram.model import Dart, Diagram, Side
 from movies.errors import MoveError
 from movies.diagram.moves.base import (
     NewNames, _Namer, _move, _rebuild, _check_edge, _check_hand, _side_in_face, _relabel_dart,

@@ -6,7 +6,9 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Sequence
 
-from movies.diagram.model import Dart, Diagram, Side, orbits, reencode
+from movies.diagram.assembly import reencode
+
+from movies.diagram.model import Dart, Diagram, Side, orbits
 from movies.errors import MoveError
 from movies.diagram.moves.base import NewNames, _Namer, _move, _rebuild, _check_edge, _relabel_dart
 

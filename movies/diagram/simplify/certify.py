@@ -31,11 +31,13 @@ import heapq
 from dataclasses import dataclass
 
 from movies.diagram.isotopy import canonical_form, isomorphism, reflect_and_switch
-from movies.diagram.model import Diagram, Side, canonical_cycle
+from movies.diagram.assembly import canonical_cycle
+from movies.diagram.model import Diagram, Side
 from movies.diagram.simplify.records import MoveRecord, apply, candidates, inverse, translate
 from movies.diagram.simplify.search import (
-    Budget, Meter, Step, _greedy, child_key, descend, undoable,
+    Budget, Meter, SimplifyResult, Step, _greedy, child_key, descend, undoable,
 )
+from movies.diagram.simplify.search import simplify as simplify_by_count
 from movies.errors import DiagramError, MoveError
 
 __all__ = ["IsotopyCertificate", "certify_isotopy", "rename"]
@@ -267,3 +269,27 @@ def certify_within(first: Diagram, second: Diagram, meter: Meter, lift: int = 1)
     if names is None:
         raise DiagramError("internal error: the certificate does not end at the second diagram")
     return IsotopyCertificate(first, second, moves, current, names, reflected, meter.used)
+
+
+def simplify(diagram: Diagram, target: object = "fewest", budget: Budget | int | None = None,
+             lift: int = 1) -> SimplifyResult:
+    """Simplify ``diagram`` toward ``target``: a crossing count (``"fewest"``, ``"crossingless"``,
+    an int) or a :class:`Diagram` to reach up to isotopy of the sphere (or else up to reflection;
+    the result's ``comparison`` says which).
+
+    The crossing-count targets are :func:`movies.diagram.simplify.search.simplify`; a diagram
+    target runs :func:`certify_within`. Running out of budget gives ``reached=False``.
+
+    >>> from movies.diagram.constructors import from_braid
+    >>> result = simplify(from_braid([1, 1, 1, 1, -1]), from_braid([1, 1, 1]))
+    >>> result.reached, result.comparison, result.diagram.crossing_count()
+    (True, 'sphere', 3)
+    """
+    if not isinstance(target, Diagram):
+        return simplify_by_count(diagram, target, budget, lift)
+    meter = Meter(Budget.of(budget))
+    certificate = certify_within(diagram, target, meter, lift)
+    if certificate is None:
+        return SimplifyResult(diagram, [], diagram, False, meter.used, meter.stopped or "exhausted", target)
+    return SimplifyResult(diagram, list(certificate.moves), certificate.end, True, certificate.explored,
+                          "goal", target, "reflection" if certificate.reflected else "sphere")

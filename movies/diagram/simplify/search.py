@@ -296,11 +296,11 @@ def _goal(target):
 
 def simplify(diagram: Diagram, target: object = "fewest", budget: Budget | int | None = None,
              lift: int = 1) -> SimplifyResult:
-    """Simplify ``diagram`` by Reidemeister moves toward ``target``, recording every move.
+    """Simplify ``diagram`` by Reidemeister moves toward a crossing count, recording every move.
 
     Parameters: the diagram; ``target``: ``"fewest"`` (as few crossings as the search finds),
-    ``"crossingless"``, an int n (at most n crossings), or a :class:`Diagram` (reach one the
-    same as it on the sphere, or else the same up to reflection; ``comparison`` says which);
+    ``"crossingless"`` or an int n (at most n crossings); a :class:`Diagram` target is for
+    :func:`movies.diagram.simplify.certify.simplify`, which also takes these;
     ``budget``: a :class:`Budget` or a number of moves (default ``Budget()``, a few seconds);
     ``lift``: R2 additions a search may stack above a stuck crossing count. Returns a
     :class:`SimplifyResult`; running out of budget gives ``reached=False``, never an error.
@@ -313,15 +313,8 @@ def simplify(diagram: Diagram, target: object = "fewest", budget: Budget | int |
     """
     budget = Budget.of(budget)
     if isinstance(target, Diagram):
-        # the isotopy search lives a layer up; imported here to keep the modules acyclic
-        from movies.diagram.simplify.certify import certify_within
-
-        meter = Meter(budget)
-        certificate = certify_within(diagram, target, meter, lift)
-        if certificate is None:
-            return SimplifyResult(diagram, [], diagram, False, meter.used, meter.stopped or "exhausted", target)
-        return SimplifyResult(diagram, list(certificate.moves), certificate.end, True, certificate.explored,
-                              "goal", target, "reflection" if certificate.reflected else "sphere")
+        # a target diagram is an isotopy question: the module above this one answers it
+        raise DiagramError("simplify toward a diagram with movies.diagram.simplify.simplify (or certify_isotopy)")
     goal = _goal(target)
     meter = Meter(budget)
     steps, stopped = descend(diagram, goal, meter, lift)
