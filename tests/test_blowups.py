@@ -5,7 +5,7 @@ import random
 import pytest
 
 from movies.checker.replay import check_movie
-from movies.checker.report import as_json
+from movies.report.movie import as_json
 from movies.diagram import moves
 from movies.diagram.tables import table_names
 from movies.errors import MoveError

@@ -4,7 +4,7 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 from movies.checker.replay import VERDICT_MEANING, check_movie
-from movies.checker.report import as_json, as_text
+from movies.report.movie import as_json, as_text
 from movies.language.movie import parse_movie
 
 small = st.integers(min_value=1, max_value=9)

@@ -8,7 +8,7 @@ from pathlib import Path
 import pytest
 
 from movies.checker.replay import check_movie
-from movies.checker.report import as_json
+from movies.report.movie import as_json
 from movies.cli.main import main
 from movies.language.movie import parse_movie
 

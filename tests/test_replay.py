@@ -1,7 +1,7 @@
 """How the checker words each step: counts, searches that stop short, unproved claims."""
 
 from movies.checker.replay import check_movie
-from movies.checker.report import as_json, as_text
+from movies.report.movie import as_json, as_text
 from movies.diagram.simplify import scramble
 from movies.language.movie import parse_movie
 from movies.language.spec import parse_diagram

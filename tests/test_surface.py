@@ -3,7 +3,7 @@
 import pytest
 
 from movies.checker.replay import check_movie
-from movies.checker.report import as_json
+from movies.report.movie import as_json
 from movies.language.movie import parse_movie
 from movies.surface.tracker import Transition, surface_of
 

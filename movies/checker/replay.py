@@ -27,6 +27,7 @@ from movies.checker.distinguish import first_difference
 from movies.invariants.jones import jones_polynomial
 from movies.invariants.signature import signature
 from movies.language.files import read_movie
+from movies.wording import plural
 from movies.language.movie import MOVE_KINDS, Movie, Statement
 from movies.surface.tracker import Surface, Transition, identity_transition, surface_of
 
@@ -294,9 +295,9 @@ class _Replay:
         outcome = search.simplify_frame(self.frame, target, self.budget)
         found = tuple(outcome.moves)
         if outcome.reached:
-            note = f"found {_count(len(found), 'Reidemeister move')}"
+            note = f"found {plural(len(found), 'Reidemeister move')}"
         else:
-            note = (f"the search stopped at {_count(outcome.diagram.crossing_count(), 'crossing')} without reaching "
+            note = (f"the search stopped at {plural(outcome.diagram.crossing_count(), 'crossing')} without reaching "
                     f"{search.describe_target(target)}: {outcome.why}")
             self.find("unproved", statement, f"step {self.number}: {note}; the movie goes on from the diagram it reached")
         transition = identity_transition("simplify", sorted(self.frame.components))
@@ -339,7 +340,7 @@ class _Replay:
         if what in ("components", "crossings"):
             actual = frame.component_count() if what == "components" else frame.crossing_count()
             self._judge(statement, actual == a["value"], f"{what} {a['value']}",
-                        f"the frame {here} has {_count(actual, what[:-1])}")
+                        f"the frame {here} has {plural(actual, what[:-1])}")
         elif what == "crossingless":
             self._judge(statement, frame.is_crossingless(), "crossingless", f"the frame {here} has {frame.crossing_count()} crossings")
         elif what in ("unlink", "isotopic"):
@@ -385,9 +386,9 @@ class _Replay:
             holds = len(comps) == 1 and comps[0].orientable and comps[0].euler_characteristic == 1 and comps[0].boundary == 1
             detail = _shape(s)
         elif fact == "connected":
-            holds, detail = s.connected, f"the surface has {_count(len(comps), 'component')}"
+            holds, detail = s.connected, f"the surface has {plural(len(comps), 'component')}"
         elif fact == "components":
-            holds, detail = len(comps) == value, f"the surface has {_count(len(comps), 'component')}"
+            holds, detail = len(comps) == value, f"the surface has {plural(len(comps), 'component')}"
         elif fact == "ribbon":
             holds, detail = ribbon_shown(self.result.movie.start.is_empty(), self.frame.is_empty(), s)
         elif fact == "orientable":
@@ -428,21 +429,17 @@ def ribbon_shown(start_empty: bool, end_empty: bool, surface: Surface) -> tuple[
     if end_empty:
         if surface.births == 0:
             return True, "no births: the movie read inward has no local maxima"
-        return None, f"the movie has {_count(surface.births, 'birth')} (local maxima read inward)"
+        return None, f"the movie has {plural(surface.births, 'birth')} (local maxima read inward)"
     if surface.deaths == 0:
         return True, "no deaths: the movie read outward has no local maxima"
-    return None, f"the movie has {_count(surface.deaths, 'death')} (local maxima read outward)"
-
-
-def _count(n: int, word: str) -> str:
-    return f"{n} {word}{'' if n == 1 else 's'}"
+    return None, f"the movie has {plural(surface.deaths, 'death')} (local maxima read outward)"
 
 
 def _shape(s: Surface) -> str:
     parts = []
     for c in s.components:
-        kind = f"genus {c.genus}" if c.orientable else _count(c.crosscaps, "crosscap")
-        parts.append(f"{kind}, {_count(c.boundary, 'boundary circle')}")
+        kind = f"genus {c.genus}" if c.orientable else plural(c.crosscaps, "crosscap")
+        parts.append(f"{kind}, {plural(c.boundary, 'boundary circle')}")
     return "; ".join(parts) if parts else "empty"
 
 

@@ -176,7 +176,7 @@ def diagram_from_arguments(args: argparse.Namespace):
 
 
 def _run_invariants(args: argparse.Namespace) -> int:
-    from movies.cli.render import invariants_text
+    from movies.report.invariants import invariants_text
     from movies.invariants.summary import classical_invariants
 
     label, diagram = diagram_from_arguments(args)
@@ -209,13 +209,13 @@ def _checked(args: argparse.Namespace):
 
 
 def _run_check(args: argparse.Namespace) -> int:
-    from movies.checker.report import as_json
-    from movies.cli.render import check_text
+    from movies.report.movie import as_json
+    from movies.report.movie import as_text as check_text
 
     result = _checked(args)
     data = as_json(result)
     if args.html:
-        from movies.draw import movie_html
+        from movies.report import movie_html
 
         _write(args.html, movie_html(result, source=args.file))
     print(json.dumps(data) if args.json else check_text(data, args.file))
@@ -313,7 +313,7 @@ def _run_bounds(args: argparse.Namespace) -> int:
     from movies.bounds.inequalities import best_genus_bound
     from movies.bounds.questions import cobordism_question
     from movies.bounds.verdicts import knot_genus_bounds
-    from movies.cli.render import cobordism_lines
+    from movies.report.questions import cobordism_lines
     from movies.language.spec import parse_diagram
 
     first = parse_diagram(args.spec)
@@ -354,7 +354,7 @@ def _run_bounds(args: argparse.Namespace) -> int:
 
 def _run_blown_up(args: argparse.Namespace, first, data: dict, lines: list[str]) -> int:
     from movies.bounds.questions import blown_up_question
-    from movies.cli.render import blown_up_lines
+    from movies.report.questions import blown_up_lines
     from movies.language.spec import parse_diagram
 
     if args.blowups is None:

@@ -1,16 +1,13 @@
-"""Pictures of diagrams and reports of movies: SVG drawings and one self-contained HTML page.
+"""Pictures of diagrams: SVG drawings from the combinatorics alone.
 
-:func:`diagram_svg` draws any diagram from its combinatorics alone; :func:`movie_html` turns a
-checked movie into one HTML file; :func:`svg_repr` and :func:`html_repr` are what a notebook
-shows for a diagram and for a checked movie.
+:func:`diagram_svg` draws any diagram; :func:`svg_repr` is what a notebook shows for one. The
+HTML report of a checked movie, which draws every frame, is in :mod:`movies.report.html`.
 
 >>> from movies.diagram.constructors import unknot
 >>> diagram_svg(unknot()).count('class="strand"')
 1
 """
 
-from movies.draw.html import html_repr, movie_html
-from movies.draw.places import place_of
 from movies.draw.svg import PALETTE, Highlight, diagram_svg, svg_repr
 
-__all__ = ["Highlight", "PALETTE", "diagram_svg", "svg_repr", "movie_html", "html_repr", "place_of"]
+__all__ = ["Highlight", "PALETTE", "diagram_svg", "svg_repr"]

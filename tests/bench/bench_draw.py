@@ -31,7 +31,8 @@ from draw.readback import check_drawing  # noqa: E402
 from movies.checker.replay import check_movie  # noqa: E402
 from movies.diagram.constructors import from_braid  # noqa: E402
 from movies.diagram.tables import table_names  # noqa: E402
-from movies.draw import diagram_svg, movie_html  # noqa: E402
+from movies.draw import diagram_svg  # noqa: E402
+from movies.report import movie_html  # noqa: E402
 from movies.language.movie import parse_movie  # noqa: E402
 from movies.language.spec import parse_diagram  # noqa: E402
 

@@ -15,7 +15,7 @@ from pathlib import Path
 import pytest
 
 from movies.checker.replay import check_movie
-from movies.draw import movie_html
+from movies.report import movie_html
 from movies.language.movie import parse_movie
 
 EXAMPLE = Path(__file__).resolve().parents[2] / "examples" / "movies" / "square-knot-ribbon.movie"

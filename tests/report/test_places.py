@@ -1,7 +1,7 @@
 """Where a move acts, as the pictures mark it."""
 
 from movies.diagram.constructors import unlink
-from movies.draw.places import place_of
+from movies.report.places import place_of
 from movies.language.movie import parse_movie
 
 

@@ -1,8 +1,10 @@
-"""A checked movie as one plain JSON-ready object (the schema is in README.md).
+"""A checked movie as one plain JSON-ready object (the schema is in README.md), and as text.
 
->>> from movies.language.movie import parse_movie
+The text layout reads only the JSON data, so the terminal, the HTML page and a script see the
+same facts.
+
 >>> from movies.checker.replay import check_movie
->>> data = as_json(check_movie(parse_movie("start unknot\\ndeath 1\\nsurface disk")))
+>>> data = as_json(check_movie("start unknot\\ndeath 1\\nsurface disk"))
 >>> data["verdict"], data["surface"]["euler_characteristic"], data["end"]
 ('verified', 1, {'components': 0, 'crossings': 0})
 """
@@ -11,6 +13,7 @@ from __future__ import annotations
 
 from movies.bounds.verdicts import surface_ambient
 from movies.checker.replay import REFUTED, VERDICT_MEANING, CheckResult, ribbon_shown
+from movies.wording import plural
 
 
 def _frame(diagram) -> dict:
@@ -79,15 +82,6 @@ def as_json(result: CheckResult) -> dict:
                        for fact, value, holds, detail in result.claims],
         }
     return data
-
-
-def plural(count: int, word: str) -> str:
-    """``count word``, with an s unless the count is one.
-
-    >>> plural(1, "band"), plural(2, "band")
-    ('1 band', '2 bands')
-    """
-    return f"{count} {word}" + ("" if count == 1 else "s")
 
 
 def step_note(step: dict) -> str:

@@ -1,4 +1,4 @@
-"""Text layouts of the command line's reports (a checked movie's lives in movies.checker.report).
+"""The invariants of one diagram as the terminal shows them: one row per invariant.
 
 >>> print(invariants_text("demo", {"components": 1, "crossings": 0, "writhe": 0, "seifert_circles": 1,
 ...     "split_pieces": 1, "jones": [[0, 1]], "signature": 0, "linking_matrix": [[0]],
@@ -19,8 +19,7 @@ from fractions import Fraction
 
 from movies.algebra.laurent import LaurentPolynomial
 # the movie report is laid out next to its JSON, where the HTML report uses it too
-from movies.checker.report import as_text as check_text  # noqa: F401
-from movies.checker.report import plural
+from movies.wording import plural
 
 
 def polynomial_text(terms: list[list], variable: str = "t") -> str:
@@ -105,53 +104,3 @@ def invariants_text(label: str, facts: dict) -> str:
         pairs = [f"lk({i + 1},{j + 1}) = {matrix[i][j]}" for i in range(len(matrix)) for j in range(i + 1, len(matrix))]
         rows.append(("linking numbers", ", ".join(pairs)))
     return "\n".join([label] + [f"  {name:<16} {value}" for name, value in rows])
-
-
-
-
-def cobordism_lines(label: str, answer) -> list[str]:
-    """The readable answer of ``movies bounds A --to B``: one block per number of components."""
-    lines = [f"  s: first {_fields(answer.s['first'])}; second {_fields(answer.s['second'])}",
-             f"  s of the mirrors: first {_fields(answer.mirror_s['first'])}; "
-             f"second {_fields(answer.mirror_s['second'])}"]
-    for shape in answer.shapes:
-        what = "connected" if shape.components == 1 else f"{shape.components} components, each meeting both ends"
-        lines.append(f"  to {label}, {what}, total genus {answer.genus} (Euler characteristic {shape.euler_characteristic})")
-        lines += [f"    {b.statement}: {b.lhs} >= {b.rhs} {'holds' if b.holds else 'FAILS'}" for b in shape.bounds]
-        lines.append("    allowed by these invariants" if shape.allowed else "    no such cobordism exists")
-    lines += [f"  note: {note}" for note in answer.notes]
-    return lines
-
-
-def blown_up_lines(first: str, second: str, answer) -> list[str]:
-    """The readable answer of ``movies bounds K --blowups N``: the 4-manifold, the class, the verdict.
-
-    The 4-manifold is named for the link on its boundary, with its usual orientation.
-    """
-    place, shape = answer.place, answer.shapes[0]
-    klass = ", ".join(map(str, place.homology_class))
-    if second == "empty":
-        what = ("a null-homologous disk" if answer.genus == 0 and place.null_homologous
-                else f"a connected surface of genus {answer.genus} in the class ({klass})")
-        where = f"{first} bounding {what} in {place.name} (punctured, {place.definite})"
-    else:
-        what = ("a null-homologous annulus" if answer.genus == 0 and place.null_homologous
-                else f"a connected cobordism of genus {answer.genus} in the class ({klass})")
-        where = f"{what} from {first} to {second} in {place.name} ({place.definite})"
-    lines = [f"  s: first {_fields(answer.s['first'])}; second {_fields(answer.s['second'])}",
-             f"  s of the mirrors: first {_fields(answer.mirror_s['first'])}; "
-             f"second {_fields(answer.mirror_s['second'])}",
-             f"  {where}: square {place.square}, Euler characteristic {shape.euler_characteristic}"]
-    lines += [f"    {b.statement}: {b.lhs} >= {b.rhs} {'holds' if b.holds else 'FAILS'}" for b in shape.bounds]
-    lines.append("    allowed by s" if shape.allowed else f"    no such surface exists: {_no(what)}")
-    lines += [f"  note: {note}" for note in answer.notes]
-    return lines
-
-
-def _no(what: str) -> str:
-    """'a null-homologous disk' -> 'no null-homologous disk'."""
-    return "no " + what.split(" ", 1)[1]
-
-
-def _fields(values: dict) -> str:
-    return ", ".join(f"{v} over {f}" for f, v in values.items())

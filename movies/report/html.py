@@ -18,9 +18,10 @@ from __future__ import annotations
 from html import escape
 
 from movies.checker.replay import CheckResult
-from movies.checker.report import plural, as_json, finding_lines, step_note, surface_lines
-from movies.draw.places import place_of
 from movies.draw.svg import diagram_svg
+from movies.report.movie import as_json, finding_lines, step_note, surface_lines
+from movies.report.places import place_of
+from movies.wording import plural
 
 #: the page's colours (our own): ink, muted ink, rules, card, accents for the verdicts
 STYLE = """

@@ -11,10 +11,10 @@ import pytest
 
 from draw.readback import check_drawing
 from movies.checker.replay import check_movie
-from movies.checker.report import as_json
-from movies.cli.render import check_text
-from movies.draw import html_repr, movie_html
-from movies.draw.html import surface_lines
+from movies.report.movie import as_json
+from movies.report.movie import as_text as check_text
+from movies.report import html_repr, movie_html
+from movies.report.movie import surface_lines
 from movies.language.movie import parse_movie
 
 EXAMPLES = Path(__file__).resolve().parents[2] / "examples" / "movies"
