@@ -36,7 +36,7 @@ from dataclasses import dataclass, field
 from functools import cached_property
 from typing import Iterable, Mapping, NamedTuple
 
-from movies.errors import DiagramError
+from movies.errors import DiagramError, NameInUseError
 
 #: position of a crossing's incoming under-strand, the other positions follow counterclockwise
 UNDER_IN, UNDER_OUT = 0, 2
@@ -574,10 +574,6 @@ class Hints:
     first_new: tuple[Side, ...] = ()
     #: pairs of old components that the move joins into one
     joined: tuple[tuple[int, int], ...] = ()
-
-
-class NameInUseError(DiagramError):
-    """A name the caller chose for something new is already taken."""
 
 
 def _fresh(taken: set[int], floor: int, chosen: list[int], kind: str) -> int:

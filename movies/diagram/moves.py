@@ -38,7 +38,7 @@ from typing import Sequence
 from movies.diagram.model import (
     Dart, Diagram, Hints, NameInUseError, Side, assemble, orbits, reencode, trace_cycles,
 )
-from movies.errors import DiagramError, MoveError
+from movies.errors import DiagramError, InternalError, MoveError
 
 
 @dataclass(frozen=True)
@@ -98,7 +98,7 @@ def _rebuild(previous: Diagram, crossings, signs, loops, hints: Hints) -> Diagra
     except NameInUseError as err:
         raise MoveError(str(err)) from None
     except DiagramError as err:  # pragma: no cover - a move that breaks planarity is a bug
-        raise MoveError(f"internal error, the move produced an invalid diagram: {err}") from err
+        raise InternalError(f"the move produced an invalid diagram: {err}") from err
 
 
 def _check_edge(diagram: Diagram, edge: int) -> None:
