@@ -15,13 +15,15 @@ surface, the findings (an invalid step, a false claim, an unproved claim) and th
 
 from __future__ import annotations
 
+import math
 from dataclasses import dataclass, field
 
+from movies import limits
 from movies.checker import search
 from movies.diagram import moves
 from movies.diagram.constructors import unlink
 from movies.diagram.model import Diagram
-from movies.errors import MoveError, MoviesError
+from movies.errors import InputError, InternalError, LocatedLimitError, MoveError, MoviesError
 from movies.invariants.alexander import alexander_polynomial, determinant
 from movies.checker.distinguish import first_difference
 from movies.invariants.jones import jones_polynomial
@@ -152,7 +154,7 @@ def _apply_move(diagram: Diagram, statement: Statement) -> tuple[Diagram, Transi
                                 turns=a["turns"], gate=gate)
         return result.diagram, transition, twist_note(a["turns"], len(a["edges"]), result.algebraic)
     else:  # pragma: no cover - the language has no other moves
-        raise AssertionError(kind)
+        raise InternalError(f"a move the checker does not know: {kind}")
     return new, identity_transition(kind, sorted(diagram.components)), ""
 
 
@@ -272,6 +274,7 @@ class _Replay:
 
     def step(self, statement: Statement) -> bool:
         before = self.frame
+        self.check_size(statement, before)
         try:
             if statement.kind == "simplify":
                 new, transition, certified, note, found = self.simplify(statement)
@@ -289,6 +292,17 @@ class _Replay:
         self.result.transitions.append(transition)
         self.record(statement, certified, note, found)
         return True
+
+    def check_size(self, statement: Statement, before: Diagram) -> None:
+        """Refuse a step whose frame would be past the limits, before it is made."""
+        kind, a = statement.kind, statement.args
+        strands = len(a["edges"]) if kind == "twist" else 0
+        crossings = before.crossing_count() + {"R1+": 1, "R2+": 2}.get(kind, strands * (strands - 1))
+        components = before.component_count() + (kind == "birth")
+        for name, value, what in (("crossings", crossings, "crossings"), ("components", components, "components")):
+            if value > limits.current()[name]:
+                raise LocatedLimitError(limits.exceeds(name, f"step {self.number} would make a frame of {value} {what}"),
+                                        self.movie.text, statement.line, statement.column)
 
     def simplify(self, statement: Statement):
         target = statement.args
@@ -366,6 +380,8 @@ class _Replay:
                        "jones": jones_polynomial, "alexander": alexander_polynomial}[what]
             try:
                 actual = compute(frame)
+            except InternalError:
+                raise
             except MoviesError as err:
                 self.find("false", statement, f"the {what} of the frame {here} is not defined: {err}")
                 return
@@ -400,7 +416,7 @@ class _Replay:
         elif fact == "euler":
             holds, detail = s.euler_characteristic == value, f"Euler characteristic {s.euler_characteristic}"
         else:  # pragma: no cover
-            raise AssertionError(fact)
+            raise InternalError(f"a surface fact the checker does not know: {fact}")
         self.result.claims.append((fact, value, holds, detail))
         said = fact if value is None else f"{fact} {value}"
         if holds is None:
@@ -466,5 +482,12 @@ def check_movie(movie, budget: float = search.DEFAULT_BUDGET, bounds: bool = Tru
     'verified'
     >>> check_movie("examples/movies/trefoil-concordance.movie").verdict
     'verified'
+
+    Raises :class:`~movies.errors.InputError` for a budget that is not a number of seconds
+    (negative, not a number, infinite), and :class:`~movies.errors.LocatedLimitError` for a
+    budget or a step whose frame would be past the limits of :mod:`movies.limits`.
     """
+    if isinstance(budget, bool) or not isinstance(budget, (int, float)) or not 0 <= budget < float("inf"):
+        raise InputError(f"a budget is a number of seconds, 0 or more, not {budget!r}")
+    limits.check("seconds", math.ceil(budget), f"a budget of {budget} seconds would let one search run {budget} seconds")
     return _Replay(read_movie(movie), budget, bounds).run()

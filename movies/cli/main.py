@@ -1,8 +1,10 @@
 """The ``movies`` command: argument parsing, dispatch, and the one place errors become exit codes.
 
 Exit codes: 0 success (for ``check``: the movie is verified); 1 a movie that is not verified;
-2 input that cannot be read (missing file, unparsable, invalid PD code, unknown name);
-3 an internal error (a bug: please report it); 130 interrupted. Errors are one line on standard error, never a traceback.
+2 input that cannot be read (missing file, unparsable, invalid PD code, unknown name, past a
+limit of :mod:`movies.limits`); 3 an internal error (a bug: please report it); 130 interrupted.
+Errors are one line on standard error (and, for text, the line with a caret), never a traceback.
+Every subcommand takes ``--limit NAME=VALUE`` (repeatable) to raise a limit.
 
 >>> main(["invariants", "--pd", "[[1,5,2,4],[3,1,4,6],[5,3,6,2]]", "--json"])  # doctest: +ELLIPSIS
 {"components": 1, "crossings": 3, "writhe": 3, ...}
@@ -14,10 +16,12 @@ from __future__ import annotations
 import argparse
 import json
 import os
+import re
 import sys
 from typing import Sequence
 
-from movies.errors import InputError, MoviesError
+from movies import limits
+from movies.errors import InputError, InternalError, LimitError, MoviesError
 from movies.language.files import read_text
 
 EXIT_OK = 0
@@ -34,6 +38,23 @@ class _Parser(argparse.ArgumentParser):
         self.print_usage(sys.stderr)
         print(f"movies: error: {message}", file=sys.stderr)
         raise SystemExit(EXIT_INPUT)
+
+
+def _whole_number(text: str) -> str:
+    """A whole number as written (checked against the digits limit once the limits are set)."""
+    if not re.fullmatch(r"\s*[+-]?[0-9]+\s*", text):
+        raise ValueError(text)
+    return text
+
+
+_whole_number.__name__ = "int"  # argparse says "invalid int value: ..."
+
+_LIMIT_HELP = ("raise a limit on the input, e.g. crossings=5000 (repeatable); limits: "
+               + ", ".join(f"{name} ({value})" for name, value in limits.DEFAULTS.items()))
+
+
+def _limit_option(parser: argparse.ArgumentParser) -> None:
+    parser.add_argument("--limit", action="append", default=[], metavar="NAME=VALUE", help=_LIMIT_HELP)
 
 
 def build_parser() -> argparse.ArgumentParser:
@@ -56,7 +77,7 @@ def build_parser() -> argparse.ArgumentParser:
     inv.add_argument("spec", nargs="?", metavar="SPEC", help="the diagram, in the movie language's notation")
     inv.add_argument("--pd", metavar="JSON", help="a PD code as a JSON list of 4-lists")
     inv.add_argument("--braid", metavar="JSON", help="a braid word as a JSON list of signed generators")
-    inv.add_argument("--strands", type=int, metavar="N", help="number of strands of the --braid word")
+    inv.add_argument("--strands", type=_whole_number, metavar="N", help="number of strands of the --braid word")
     inv.add_argument("--file", metavar="PATH", help="read SPEC from a file")
     inv.add_argument("--json", action="store_true", help="print one JSON object instead of the table")
     inv.add_argument("--field", action="append", default=[], metavar="F",
@@ -64,6 +85,7 @@ def build_parser() -> argparse.ArgumentParser:
     inv.add_argument("--reduced", action="store_true", help="also reduced Khovanov homology")
     inv.add_argument("--bar-natan", action="store_true", help="also Bar-Natan homology over F[H]")
     inv.add_argument("--classical", action="store_true", help="only the classical invariants (no homology)")
+    _limit_option(inv)
     inv.set_defaults(run=_run_invariants)
 
     chk = commands.add_parser(
@@ -74,9 +96,10 @@ def build_parser() -> argparse.ArgumentParser:
     )
     chk.add_argument("file", metavar="FILE", help="the movie file")
     chk.add_argument("--json", action="store_true", help="print one JSON object instead of the report")
-    chk.add_argument("--budget", type=float, metavar="SECONDS", default=None,
+    chk.add_argument("--budget", metavar="SECONDS", default=None,
                      help="time each search may take (default 5; a movie's own 'budget' statement wins)")
     chk.add_argument("--html", metavar="OUT.html", help="also write the report as one self-contained HTML page")
+    _limit_option(chk)
     chk.set_defaults(run=_run_check)
 
     drw = commands.add_parser(
@@ -88,10 +111,11 @@ def build_parser() -> argparse.ArgumentParser:
     drw.add_argument("spec", nargs="?", metavar="SPEC", help="the diagram, in the movie language's notation")
     drw.add_argument("--pd", metavar="JSON", help="a PD code as a JSON list of 4-lists")
     drw.add_argument("--braid", metavar="JSON", help="a braid word as a JSON list of signed generators")
-    drw.add_argument("--strands", type=int, metavar="N", help="number of strands of the --braid word")
+    drw.add_argument("--strands", type=_whole_number, metavar="N", help="number of strands of the --braid word")
     drw.add_argument("--file", metavar="PATH", help="read SPEC from a file")
     drw.add_argument("-o", "--output", metavar="FILE", required=True, help="FILE.svg, or FILE.png where a converter is found")
     drw.add_argument("--labels", action="store_true", help="write the names of edges, crossings and faces")
+    _limit_option(drw)
     drw.set_defaults(run=_run_draw)
 
     bnd = commands.add_parser(
@@ -104,10 +128,10 @@ def build_parser() -> argparse.ArgumentParser:
     )
     bnd.add_argument("spec", metavar="SPEC", help="the (first) diagram")
     bnd.add_argument("--to", metavar="SPEC", help="the other end of a cobordism ('empty' for the 4-ball)")
-    bnd.add_argument("--genus", type=int, metavar="G", default=0, help="total genus of the cobordism asked about (default 0)")
-    bnd.add_argument("--components", type=int, metavar="N", default=None,
+    bnd.add_argument("--genus", type=_whole_number, metavar="G", default="0", help="total genus of the cobordism asked about (default 0)")
+    bnd.add_argument("--components", type=_whole_number, metavar="N", default=None,
                      help="ask about N components only (default: every number from 1, connected, upwards)")
-    bnd.add_argument("--blowups", type=int, metavar="K", default=None,
+    bnd.add_argument("--blowups", type=_whole_number, metavar="K", default=None,
                      help="ask, by Ren's inequality, about a connected surface that SPEC bounds in the 4-ball "
                           "blown up K times (SPEC on its boundary, oriented as usual); with --to, about a "
                           "cobordism from SPEC to the other end in S³ × I blown up K times")
@@ -116,6 +140,7 @@ def build_parser() -> argparse.ArgumentParser:
     bnd.add_argument("--class", dest="homology_class", metavar="A1,...,AK", default=None,
                      help="with --blowups: the surface's class (default: null-homologous, all zero)")
     bnd.add_argument("--json", action="store_true", help="print one JSON object")
+    _limit_option(bnd)
     bnd.set_defaults(run=_run_bounds)
 
     frm = commands.add_parser(
@@ -125,11 +150,12 @@ def build_parser() -> argparse.ArgumentParser:
         "so that the next step can be written.",
     )
     frm.add_argument("file", metavar="FILE", help="the movie file")
-    frm.add_argument("--at", type=int, metavar="N", default=None, help="the step (default: the last frame)")
-    frm.add_argument("--budget", type=float, metavar="SECONDS", default=None, help="as for check")
+    frm.add_argument("--at", type=_whole_number, metavar="N", default=None, help="the step (default: the last frame)")
+    frm.add_argument("--budget", metavar="SECONDS", default=None, help="as for check")
     frm.add_argument("--json", action="store_true", help="print the frame's names as one JSON object")
     frm.add_argument("--svg", metavar="OUT.svg", help="also draw the frame, with every name, as an SVG file")
     frm.add_argument("--png", metavar="OUT.png", help="also draw the frame, with every name, as a PNG file")
+    _limit_option(frm)
     frm.set_defaults(run=_run_frames)
     return parser
 
@@ -144,10 +170,36 @@ def _summand(text: str) -> str:
 
 
 def _json_argument(text: str, what: str):
+    """JSON from the command line, its nesting and the digits of its numbers checked first."""
+    from movies.language.frontend import depth_message, nesting_problem
+
+    deep = nesting_problem(text, comment=None, strings=True)
+    if deep is not None:
+        raise LimitError(f"{what}: {depth_message(limits.current()['depth'] + 1)} (column {deep + 1})", "depth")
+
+    def whole(digits: str) -> int:
+        message = limits.digits_error(digits, what)
+        if message:
+            raise LimitError(message, "digits")
+        return int(digits)
+
     try:
-        return json.loads(text)
+        return json.loads(text, parse_int=whole)
     except json.JSONDecodeError as err:
         raise InputError(f"{what} is not valid JSON: {err.msg} at column {err.colno}") from None
+    except RecursionError:  # only when the depth limit was raised past what the JSON reader can take
+        raise LimitError(f"{what}: the JSON nests deeper than the reader can follow", "depth") from None
+
+
+def _number(text: str | None, what: str) -> int | None:
+    """An option's whole number, checked against the digits limit (None stays None)."""
+    return None if text is None else limits.number(text, what)
+
+
+def _seconds(text: str | None) -> float:
+    from movies.checker.search import DEFAULT_BUDGET
+
+    return DEFAULT_BUDGET if text is None else limits.seconds(text, "--budget")
 
 
 def diagram_from_arguments(args: argparse.Namespace):
@@ -167,7 +219,7 @@ def diagram_from_arguments(args: argparse.Namespace):
         word = _json_argument(args.braid, "--braid")
         if not isinstance(word, list):
             raise InputError("--braid takes a JSON list of signed generators, e.g. [1, 1, -2]")
-        return f"braid {args.braid}", from_braid(word, strands=args.strands)
+        return f"braid {args.braid}", from_braid(word, strands=_number(args.strands, "--strands"))
     from movies.language.spec import parse_diagram
 
     if args.file is not None:
@@ -202,10 +254,10 @@ def _read_movie(path: str):
 
 def _checked(args: argparse.Namespace):
     from movies.checker.replay import check_movie
-    from movies.checker.search import DEFAULT_BUDGET
 
+    budget = _seconds(args.budget)
     movie = _read_movie(args.file)
-    return check_movie(movie, DEFAULT_BUDGET if args.budget is None else args.budget)
+    return check_movie(movie, budget)
 
 
 def _run_check(args: argparse.Namespace) -> int:
@@ -286,7 +338,7 @@ def _run_draw(args: argparse.Namespace) -> int:
 def _run_frames(args: argparse.Namespace) -> int:
     result = _checked(args)
     last = len(result.frames) - 1
-    at = last if args.at is None else args.at
+    at = last if args.at is None else _number(args.at, "--at")
     if not 0 <= at <= last:
         stop = " (the movie stops at an invalid step)" if not result.complete else ""
         raise InputError(f"there is no frame after step {at}: the frames run from 0 to {last}{stop}")
@@ -316,6 +368,9 @@ def _run_bounds(args: argparse.Namespace) -> int:
     from movies.report.questions import cobordism_lines
     from movies.language.spec import parse_diagram
 
+    args.genus = _number(args.genus, "--genus")
+    args.components = _number(args.components, "--components")
+    args.blowups = _number(args.blowups, "--blowups")
     first = parse_diagram(args.spec)
     data: dict = {"first": args.spec}
     lines = [args.spec]
@@ -361,6 +416,7 @@ def _run_blown_up(args: argparse.Namespace, first, data: dict, lines: list[str])
         raise InputError("--class and --summand need --blowups K (the number of blow-ups)")
     if args.blowups < 1:
         raise InputError("--blowups is 1 or more")
+    limits.check("blowups", args.blowups, f"--blowups {args.blowups} asks about {args.blowups} CP²-bar summands")
     if args.genus < 0:
         raise InputError("--genus is 0 or more")
     if args.components is not None:
@@ -368,12 +424,13 @@ def _run_blown_up(args: argparse.Namespace, first, data: dict, lines: list[str])
     summand = _summand(args.summand or "CP2-bar")
     klass = (0,) * args.blowups
     if args.homology_class is not None:
-        try:
-            klass = tuple(int(part) for part in args.homology_class.split(","))
-        except ValueError:
-            raise InputError(f"--class is a comma-separated list of integers, not {args.homology_class!r}") from None
-        if len(klass) != args.blowups:
-            raise InputError(f"--class has {len(klass)} entries but --blowups is {args.blowups}: one entry per blow-up")
+        parts = args.homology_class.split(",")
+        if not all(re.fullmatch(r"\s*[+-]?[0-9]+\s*", part) for part in parts):
+            shown = args.homology_class if len(args.homology_class) <= 60 else args.homology_class[:60] + "…"
+            raise InputError(f"--class is a comma-separated list of integers, not {shown!r}")
+        if len(parts) != args.blowups:
+            raise InputError(f"--class has {len(parts)} entries but --blowups is {args.blowups}: one entry per blow-up")
+        klass = tuple(limits.number(part, "--class") for part in parts)
     target = args.to or "empty"
     second = parse_diagram(target)
     try:
@@ -419,7 +476,15 @@ def main(argv: Sequence[str] | None = None) -> int:
         parser.print_help()
         return EXIT_INPUT
     try:
-        return args.run(args)
+        settings = dict(limits.setting(text) for text in args.limit)
+        with limits.using(settings):
+            return args.run(args)
+    except InternalError as err:
+        if os.environ.get("MOVIES_DEBUG"):
+            raise
+        print(f"movies: internal error: {err}; please report it (MOVIES_DEBUG=1 shows the traceback)",
+              file=sys.stderr)
+        return EXIT_INTERNAL
     except MoviesError as err:
         message = str(err).strip() or type(err).__name__
         print(f"movies: error: {message}", file=sys.stderr)

@@ -18,7 +18,7 @@ from dataclasses import dataclass, field
 from typing import Iterable, Mapping
 
 from movies.diagram.model import Dart, Diagram, Side, orbits
-from movies.errors import DiagramError
+from movies.errors import DiagramError, NameInUseError
 from movies.unionfind import UnionFind
 
 def trace_cycles(
@@ -111,10 +111,6 @@ class Hints:
     first_new: tuple[Side, ...] = ()
     #: pairs of old components that the move joins into one
     joined: tuple[tuple[int, int], ...] = ()
-
-
-class NameInUseError(DiagramError):
-    """A name the caller chose for something new is already taken."""
 
 
 def _fresh(taken: set[int], floor: int, chosen: list[int], kind: str) -> int:

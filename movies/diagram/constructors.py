@@ -26,13 +26,13 @@ from __future__ import annotations
 
 from typing import Iterable, Sequence
 
+from movies import limits
 from movies.diagram.assembly import assemble, canonical_cycle, reencode, trace_cycles
-
 from movies.diagram.model import Diagram, Side
 from movies.diagram.moves import saddle
 from movies.diagram.pd import from_pd
 from movies.diagram.tables import lookup
-from movies.errors import BraidError, DiagramError
+from movies.errors import BraidError, DiagramError, GeneratorError, InternalError, LimitError
 
 __all__ = [
     "GeneratorError",
@@ -47,14 +47,6 @@ __all__ = [
     "reverse",
     "from_table",
 ]
-
-
-class GeneratorError(BraidError):
-    """A braid generator that cannot be used; ``position`` is its place in the word (from 1)."""
-
-    def __init__(self, message: str, position: int) -> None:
-        super().__init__(message)
-        self.position = position
 
 
 # ---------------------------------------------------------------------- circles
@@ -88,6 +80,7 @@ def unlink(n: int) -> Diagram:
     """
     if isinstance(n, bool) or not isinstance(n, int) or n < 0:
         raise DiagramError(f"an unlink has a whole number of circles, 0 or more, not {n!r}")
+    limits.check("components", n, f"unlink({n}) would have {n} components")
     return assemble({}, {}, range(1, n + 1))
 
 
@@ -121,9 +114,15 @@ def _check_word(word: Iterable[int], strands: int | None) -> tuple[list[int], in
                 position,
             )
     if strands is None:
-        strands = max((abs(g) for g in word), default=0) + 1
+        widest = max(range(len(word)), key=lambda i: abs(word[i]), default=None)
+        strands = 1 if widest is None else abs(word[widest]) + 1
+        if strands > limits.current()["strands"]:
+            raise LimitError(limits.exceeds("strands", f"generator {word[widest]} at position {widest + 1} of the "
+                                            f"braid word needs {strands} strands"), "strands", widest + 1)
     elif isinstance(strands, bool) or not isinstance(strands, int) or strands < 1:
         raise BraidError(f"a braid has a whole number of strands, 1 or more, not {strands!r}")
+    limits.check("strands", strands, f"the braid would have {strands} strands")
+    limits.check("crossings", len(word), f"the braid word has {len(word)} crossings")
     for position, generator in enumerate(word, start=1):
         if abs(generator) >= strands:
             allowed = "there are no generators" if strands == 1 else f"generators run from ±1 to ±{strands - 1}"
@@ -153,7 +152,7 @@ def from_braid(word: Sequence[int], strands: int | None = None) -> Diagram:
     >>> from_braid([1, 3, 0])
     Traceback (most recent call last):
     ...
-    movies.diagram.constructors.GeneratorError: generator 0 at position 3 of the braid word: generators are nonzero (i is sigma_i, -i its inverse)
+    movies.errors.GeneratorError: generator 0 at position 3 of the braid word: generators are nonzero (i is sigma_i, -i its inverse)
     """
     word, strands = _check_word(word, strands)
     # Segments of strand between crossings, at positions 0..strands-1 (left to right).
@@ -239,7 +238,10 @@ def torus_link(p: int, q: int) -> Diagram:
     if p < 0:
         p, q = -p, -q
     if p == 0:
+        limits.check("components", abs(q), f"torus({p}, {q}) would have {abs(q)} components")
         return unlink(abs(q))
+    limits.check("strands", p, f"torus({p}, {q}) would have {p} strands")
+    limits.check("crossings", (p - 1) * abs(q), f"torus({p}, {q}) would have {(p - 1) * abs(q)} crossings")
     step = list(range(1, p)) if q > 0 else [-g for g in range(1, p)]
     return from_braid(step * abs(q), strands=p)
 
@@ -259,6 +261,14 @@ def _shifted(diagram: Diagram, edge: int, crossing: int, face: int, component: i
         {name + component: tuple(e + edge for e in edges) for name, edges in diagram.components.items()},
         {name + face: tuple(tuple(side(s) for s in cycle) for cycle in cycles) for name, cycles in diagram.faces.items()},
     )
+
+
+def _check_sizes(first: Diagram, second: Diagram, what: str, joined: int) -> None:
+    """Refuse a union or sum past the limits before it is built (``joined`` components merge)."""
+    crossings = first.crossing_count() + second.crossing_count()
+    limits.check("crossings", crossings, f"the {what} would have {crossings} crossings")
+    components = first.component_count() + second.component_count() - joined
+    limits.check("components", components, f"the {what} would have {components} components")
 
 
 def _right_of_smallest_edge(diagram: Diagram) -> int:
@@ -286,6 +296,7 @@ def disjoint_union(first: Diagram, second: Diagram, face: int | None = None,
         first.face(face)
     if other_face is not None:
         second.face(other_face)
+    _check_sizes(first, second, "disjoint union", 0)
     if second.is_empty():
         return first
     if first.is_empty():
@@ -340,6 +351,7 @@ def connected_sum(first: Diagram, second: Diagram, first_edge: int | None = None
             raise DiagramError(f"the {which} diagram is empty: a connected sum needs an edge of each")
         if edge is not None and edge not in diagram.edges():
             raise DiagramError(f"edge {edge} is not in the {which} diagram (edges: {diagram.edges()})")
+    _check_sizes(first, second, "connected sum", 1)
     first_edge = first.edges()[0] if first_edge is None else first_edge
     second_edge = second.edges()[0] if second_edge is None else second_edge
     face = int(first.faces_beside(first_edge)[1])
@@ -349,7 +361,7 @@ def connected_sum(first: Diagram, second: Diagram, first_edge: int | None = None
         return _band_at_circle(union, first_edge, moved_edge)
     result = saddle(union, first_edge, moved_edge, face=face)
     if not result.respects_orientation or result.effect != "merge":  # pragma: no cover - a bug
-        raise DiagramError(f"internal error: the band of the connected sum gave a {result.effect}")
+        raise InternalError(f"the band of the connected sum gave a {result.effect}")
     return result.diagram
 
 

@@ -22,10 +22,10 @@ from __future__ import annotations
 from collections import Counter
 from typing import Iterable, Sequence
 
+from movies import limits
 from movies.diagram.assembly import assemble
-
 from movies.diagram.model import Diagram, DiagramError
-from movies.errors import PDCodeError
+from movies.errors import InternalError, PDCodeError
 
 
 def normalize_pd(code: Iterable[Sequence[int]]) -> list[tuple[int, int, int, int]]:
@@ -42,6 +42,7 @@ def normalize_pd(code: Iterable[Sequence[int]]) -> list[tuple[int, int, int, int
         rows = [list(row) for row in code]
     except TypeError:
         raise PDCodeError("a PD code is a list of crossings, each a list of four labels") from None
+    limits.check("crossings", len(rows), f"the PD code has {len(rows)} crossings")
     result = []
     for index, row in enumerate(rows, start=1):
         if len(row) != 4:
@@ -114,7 +115,7 @@ def _orient(rows: list[tuple[int, int, int, int]]) -> list[int]:
     signs = []
     for index in range(len(rows)):
         if not head[(index, 0)]:
-            raise AssertionError("orientation pass broke the under-strand rule")  # pragma: no cover
+            raise InternalError("orientation pass broke the under-strand rule")  # pragma: no cover
         signs.append(+1 if head[(index, 3)] else -1)
     return signs
 
@@ -179,7 +180,11 @@ def from_pd(code: Iterable[Sequence[int]], loops: int = 0) -> Diagram:
     sign_map = {i + 1: s for i, s in enumerate(signs)}
     start = max((label for row in rows for label in row), default=0) + 1
     loop_names = range(start, start + loops)
+    limits.check("components", loops, f"{loops} crossingless circles")
     try:
-        return assemble(crossings, sign_map, loop_names)
+        diagram = assemble(crossings, sign_map, loop_names)
     except DiagramError as err:
         raise PDCodeError(f"the PD code is not planar: {err}") from None
+    count = diagram.component_count()
+    limits.check("components", count, f"the PD code has {count} components")
+    return diagram

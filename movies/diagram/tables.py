@@ -54,6 +54,7 @@ import re
 
 import database_knotinfo
 
+from movies import limits
 from movies.errors import InputError, PDCodeError, TableError
 
 __all__ = ["TableEntry", "canonical_name", "lookup", "table_names", "table_row"]
@@ -180,6 +181,9 @@ _CLASSICAL = re.compile(r"[kK]?(\d+)_(\d+)")
 _LETTERED_KNOT = re.compile(r"[kK]?(\d+)([aAnN])_?(\d+)")
 _LINK = re.compile(r"[lL](\d+)([aAnN])_?(\d+)\s*(\{[\d,\s]*\})?")
 
+#: longer than any spelling of a table name, orientation braces included
+_LONGEST_NAME = 80
+
 _FIRST_LETTERED = 11  # knots from this many crossings on are named 11a_1, 11n_1, ...
 
 
@@ -277,6 +281,11 @@ def canonical_name(name: str) -> str:
     if not isinstance(name, str):
         raise TableError(f"a table name must be text, not {type(name).__name__}")
     text = name.strip()
+    for run in re.findall(r"[0-9]+", text):
+        limits.check("digits", len(run), f"the number {limits.show_number(run)} in a table name has {len(run)} digits")
+    if len(text) > _LONGEST_NAME:  # no table name is this long; spare the search for close names
+        raise TableError(f"no knot or link is named {text[:20]!r}…: table names have at most "
+                         f"{_LONGEST_NAME} characters")
     if text[:1] in ("L", "l"):
         return _link_canonical(text)
     return _knot_canonical(text)

@@ -30,7 +30,7 @@ from fractions import Fraction
 
 from movies.diagram.scan_order import scan_order
 from movies.diagram.model import Diagram
-from movies.homology.errors import HomologyError
+from movies.errors import HomologyError, InternalError
 from movies.homology.rings import Ring, parse_field
 from movies.homology.scanning import CarriedClass, FinalComplex, finish, scan_complex
 
@@ -79,7 +79,7 @@ def checkerboard(diagram: Diagram) -> dict[int, int]:
                     colour[other] = 1 - colour[face]
                     stack.append(other)
                 elif colour[other] == colour[face]:  # pragma: no cover - a planar diagram is 2-colourable
-                    raise HomologyError(f"internal error: faces {face} and {other} cannot be coloured apart")
+                    raise InternalError(f"faces {face} and {other} cannot be coloured apart")
     return colour
 
 
@@ -127,13 +127,13 @@ def _check_cycle(final: FinalComplex, cycle: dict[int, int], q: int) -> None:
     for i in cycle:
         h, qi = gens[i]
         if h != 0 or qi < q or (qi - q) % 2:
-            raise HomologyError(f"internal error: the canonical class has a term at {(h, qi)}, not at q ≤ {q} in degree 0")
+            raise InternalError(f"the canonical class has a term at {(h, qi)}, not at q ≤ {q} in degree 0")
     image: dict[int, int] = {}
     for (i, j), c in final.entries.items():
         if i in cycle:
             image[j] = image.get(j, 0) + c * cycle[i]
     if any(image.values()):
-        raise HomologyError("internal error: the canonical class is not a cycle")
+        raise InternalError("the canonical class is not a cycle")
 
 
 def s_from_canonical(canonical: CanonicalComplex, field: str = "Q") -> int:
@@ -167,7 +167,7 @@ def s_from_canonical(canonical: CanonicalComplex, field: str = "Q") -> int:
     alpha = {rank[i]: norm(c) for i, c in canonical.cycle.items() if norm(c)}
     _reduce(alpha, pivots, p)
     if not alpha:
-        raise HomologyError("internal error: the canonical class is a boundary in Lee homology")
+        raise InternalError("the canonical class is a boundary in Lee homology")
     lowest = min(alpha)
     by_rank = {r: i for i, r in rank.items()}
     return gens[by_rank[lowest]][1] + 1

@@ -1,4 +1,4 @@
-"""Errors of the homology engine.
+"""Errors of the homology engine (they live in :mod:`movies.errors` with every other error).
 
 >>> issubclass(HomologyError, MoviesError)
 True
@@ -6,18 +6,6 @@ True
 
 from __future__ import annotations
 
-from movies.errors import MoviesError
+from movies.errors import FieldError, HomologyError, MoviesError, NotAKnotError
 
-__all__ = ["HomologyError", "FieldError", "NotAKnotError"]
-
-
-class HomologyError(MoviesError):
-    """A homology computation that cannot be done as asked."""
-
-
-class FieldError(HomologyError):
-    """A ground ring name that is not ``"Q"``, ``"Z"`` or ``"F<prime>"``."""
-
-
-class NotAKnotError(HomologyError):
-    """An invariant defined here for knots only, asked of a link."""
+__all__ = ["HomologyError", "FieldError", "NotAKnotError", "MoviesError"]

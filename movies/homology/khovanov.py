@@ -30,7 +30,7 @@ from typing import Callable
 
 from movies.diagram.scan_order import scan_order
 from movies.diagram.model import Diagram
-from movies.homology.errors import FieldError, HomologyError, NotAKnotError
+from movies.errors import FieldError, HomologyError, InternalError, NotAKnotError
 from movies.homology.graded import bar_natan_module, khovanov_integral, khovanov_ranks
 from movies.homology.rings import Ring, parse_field
 from movies.homology.scanning import FinalComplex, finish, scan_complex
@@ -204,7 +204,7 @@ def s_from_complex(final: FinalComplex, p: int) -> int:
     free = bar_natan_module(final, p, degrees={0})["free"]  # s needs degree 0 only
     degrees = sorted(q for (h, q), r in free.items() for _ in range(r))
     if len(degrees) != 2 or any(h != 0 for h, _ in free) or degrees[1] - degrees[0] != 2:
-        raise HomologyError(f"internal error: the free part of Bar-Natan homology of a knot is "
+        raise InternalError(f"the free part of Bar-Natan homology of a knot is "
                             f"{free}, not two copies of F[H] at q = s - 1, s + 1")
     return degrees[0] + 1
 

@@ -14,8 +14,10 @@ False
 
 from __future__ import annotations
 
+import re
 from dataclasses import dataclass
 
+from movies import limits
 from movies.homology.errors import FieldError
 
 __all__ = ["Ring", "parse_field"]
@@ -80,15 +82,15 @@ def parse_field(field: str) -> Ring:
     >>> parse_field("F4")
     Traceback (most recent call last):
     ...
-    movies.homology.errors.FieldError: ground ring 'F4': 4 is not a prime
+    movies.errors.FieldError: ground ring 'F4': 4 is not a prime
     """
     if not isinstance(field, str):
         raise FieldError(f"ground ring {field!r} is not a name such as 'Q', 'Z', 'F2' or 'F3'")
     text = field.strip().upper()
     if text in ("Q", "Z"):
         return Ring(text, 0)
-    if text.startswith("F") and text[1:].isdigit():
-        p = int(text[1:])
+    if re.fullmatch(r"F[0-9]+", text):
+        p = limits.number(text[1:], "the ground ring")
         if not _is_prime(p):
             raise FieldError(f"ground ring {field!r}: {p} is not a prime")
         return Ring(f"F{p}", p)

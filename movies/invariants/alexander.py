@@ -38,7 +38,7 @@ from typing import Sequence
 
 from movies.algebra.laurent import LaurentPolynomial
 from movies.diagram.model import Diagram
-from movies.errors import DiagramError, InputError
+from movies.errors import DiagramError, InputError, InternalError
 from movies.invariants.seifert import seifert_surface
 
 __all__ = [
@@ -107,7 +107,7 @@ def alexander_coefficients(seifert: Sequence[Sequence[int]]) -> list[int]:
             following[i] -= level * c
         basis = following
     if any(c.denominator != 1 for c in coefficients):
-        raise AssertionError("non-integral Alexander coefficient")  # pragma: no cover
+        raise InternalError("non-integral Alexander coefficient")  # pragma: no cover
     return [int(c) for c in coefficients]
 
 
@@ -163,7 +163,7 @@ def conway_polynomial(diagram: Diagram) -> LaurentPolynomial:
     while remaining:
         top = max(remaining)
         if top < 0:
-            raise AssertionError("Alexander polynomial is not Conway-symmetric")  # pragma: no cover
+            raise InternalError("Alexander polynomial is not Conway-symmetric")  # pragma: no cover
         c = remaining[top]
         result[top] = c
         # (x - 1/x)^top = Σ_i binom(top, i) (-1)^i x^(top - 2i)

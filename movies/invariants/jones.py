@@ -37,7 +37,7 @@ from __future__ import annotations
 from fractions import Fraction
 
 from movies.algebra.laurent import LaurentPolynomial
-from movies.errors import DiagramError, PDCodeError
+from movies.errors import EmptyDiagramError, PDCodeError
 from movies.diagram.scan_order import checked_pd, connected_pieces, piece_order
 
 __all__ = [
@@ -47,10 +47,6 @@ __all__ = [
     "kauffman_bracket",
     "jones_polynomial",
 ]
-
-
-class EmptyDiagramError(DiagramError):
-    """The empty diagram has no bracket or Jones polynomial in Laurent polynomials (it is 1/d)."""
 
 
 #: d = -A^2 - A^-2, the value of a closed circle

@@ -47,7 +47,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 from movies.diagram.model import Diagram, Side, head_positions
-from movies.errors import DiagramError
+from movies.errors import DiagramError, InternalError
 from movies.unionfind import UnionFind
 
 __all__ = [
@@ -220,7 +220,7 @@ def seifert_surface(diagram: Diagram) -> SeifertSurface:
         row = []
         for j in keep:
             if twice[i][j] % 2:
-                raise AssertionError("half-integral Seifert form entry")  # pragma: no cover
+                raise InternalError("half-integral Seifert form entry")  # pragma: no cover
             row.append(twice[i][j] // 2)
         matrix.append(tuple(row))
     basis = tuple(FaceLoop(cycles[i][0], cycles[i][1], loop_region[i]) for i in keep)

@@ -26,7 +26,7 @@ from math import gcd
 from typing import Sequence
 
 from movies.diagram.model import Diagram
-from movies.errors import InputError
+from movies.errors import InputError, InternalError
 from movies.invariants.seifert import seifert_surface
 
 __all__ = [
@@ -117,7 +117,7 @@ def _poly_divide_exact(numerator: list[int], denominator: list[int]) -> list[int
             for i, d in enumerate(denominator):
                 num[k + i] -= coeff * d
     if any(num):
-        raise AssertionError("inexact polynomial division")  # pragma: no cover
+        raise InternalError("inexact polynomial division")  # pragma: no cover
     return out
 
 
@@ -253,7 +253,7 @@ class _Field:
         norm = self.mul(product, whole)  # a rational number: Π of all conjugates
         (constant, *rest), norm_denominator = norm
         if any(rest):
-            raise AssertionError("the norm is not rational")  # pragma: no cover
+            raise InternalError("the norm is not rational")  # pragma: no cover
         # 1/x = denominator · product / norm
         scale_numerator = denominator * norm_denominator
         return self.normal([u * scale_numerator * (1 if constant > 0 else -1) for u in product[0]],

@@ -43,18 +43,28 @@ from __future__ import annotations
 
 import difflib
 import functools
-import importlib.resources
-import pathlib
+import re
 from dataclasses import dataclass, field
 from typing import Any
 
 from lark import Lark, Token, Tree
 from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput, UnexpectedToken
 
+from movies import limits
 from movies.algebra.laurent import LaurentPolynomial
 from movies.diagram.model import Diagram
-from movies.errors import InputError, MoviesError
-from movies.language.spec import Located, parse_diagram
+from movies.errors import (
+    InputError,
+    InternalError,
+    LimitError,
+    LocatedError,
+    LocatedLimitError,
+    MovieInputError,
+    MovieSyntaxError,
+    MoviesError,
+)
+from movies.language.frontend import Lines, check_digits, grammar_text, read_int
+from movies.language.spec import parse_diagram
 
 __all__ = ["Statement", "Movie", "MovieSyntaxError", "MovieInputError", "parse_movie", "STATEMENT_WORDS"]
 
@@ -66,14 +76,6 @@ STATEMENT_WORDS = (
 
 #: statements that change the frame
 MOVE_KINDS = ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "twist", "simplify", "isotopic")
-
-
-class MovieSyntaxError(Located, InputError):
-    """A movie file the language cannot read; carries the line, column and a caret picture."""
-
-
-class MovieInputError(Located, InputError):
-    """A statement that reads but cannot mean anything (a polynomial that does not parse, ...)."""
 
 
 @dataclass(frozen=True)
@@ -118,10 +120,7 @@ class Movie:
 
 def movie_grammar() -> str:
     """The text of ``movie.lark`` (from the installed package, or the checkout's grammar folder)."""
-    try:
-        return (importlib.resources.files("movies.grammar") / "movie.lark").read_text(encoding="utf-8")
-    except (ModuleNotFoundError, FileNotFoundError):  # pragma: no cover - uninstalled checkout
-        return (pathlib.Path(__file__).resolve().parents[2] / "grammar" / "movie.lark").read_text(encoding="utf-8")
+    return grammar_text("movie.lark")
 
 
 @functools.lru_cache(maxsize=1)
@@ -164,21 +163,25 @@ _EXAMPLES: dict[str, list[str]] = {
         "start unknot\nsurface disk genus 0",
     ],
     "the first frame: 'start DIAGRAM', e.g. 'start 3_1 # mirror(3_1)'": ["start"],
+    "a budget is a whole number of seconds, 0 or more: 'budget 5 seconds'": [
+        "start unknot\nbudget", "start unknot\nbudget -1 seconds", "start unknot\nbudget x seconds",
+        "start unknot\nbudget 5 minutes",
+    ],
     "one statement per line": ["start unknot\ndeath 1 death 2", "start unknot\nband 1 2 3"],
 }
 
 
-def _position(text: str, err: UnexpectedInput) -> tuple[int, int]:
+def _position(lines: Lines, err: UnexpectedInput) -> tuple[int, int]:
     line = getattr(err, "line", None)
     column = getattr(err, "column", None)
     if isinstance(line, int) and line > 0:
         return line, column if isinstance(column, int) and column > 0 else 1
-    lines = text.split("\n")
-    return len(lines), len(lines[-1]) + 1
+    return len(lines), len(lines[len(lines)]) + 1
 
 
 def _syntax_error(text: str, err: UnexpectedInput) -> MovieSyntaxError:
-    line, column = _position(text, err)
+    lines = Lines(text)
+    line, column = _position(lines, err)
     if isinstance(err, UnexpectedEOF):
         return MovieSyntaxError("the movie ends in the middle of a statement", text, line, column)
     hint = None
@@ -186,16 +189,18 @@ def _syntax_error(text: str, err: UnexpectedInput) -> MovieSyntaxError:
         hint = err.match_examples(movie_parser().parse, _EXAMPLES, use_accepts=False)
     except Exception:  # pragma: no cover - a failure of the hint machinery must not hide the error
         hint = None
+    row = lines[line]
     if isinstance(err, UnexpectedCharacters):
-        got = text.split("\n")[line - 1][column - 1: column + 11].split(" ")[0] or repr(err.char)
+        got = row[column - 1: column + 11].split(" ")[0] or repr(err.char)
     else:
         token = err.token if isinstance(err, UnexpectedToken) else None
         shown = str(token).split()[0] if token is not None and str(token).split() else str(token)
         got = "the end of the line" if token is not None and token.type in ("_NL", "$END") else f"'{shown}'"
-    first_word = text.split("\n")[line - 1].strip().split(" ")[0] if text.split("\n")[line - 1].strip() else ""
-    if column == _first_column(text, line) and first_word not in STATEMENT_WORDS:
-        close = difflib.get_close_matches(first_word, STATEMENT_WORDS, n=1)
-        reason = f"no statement starts with '{first_word}'"
+    first_word = row.strip().split(" ")[0] if row.strip() else ""
+    if column == len(row) - len(row.lstrip()) + 1 and first_word not in STATEMENT_WORDS:
+        close = difflib.get_close_matches(first_word[:40], STATEMENT_WORDS, n=1)
+        shown_word = first_word if len(first_word) <= 40 else first_word[:40] + "…"
+        reason = f"no statement starts with '{shown_word}'"
         reason += f"; did you mean '{close[0]}'?" if close else f"; statements start with {', '.join(STATEMENT_WORDS)}"
         return MovieSyntaxError(reason, text, line, column)
     reason = f"unexpected {got}"
@@ -204,127 +209,144 @@ def _syntax_error(text: str, err: UnexpectedInput) -> MovieSyntaxError:
     return MovieSyntaxError(reason, text, line, column)
 
 
-def _first_column(text: str, line: int) -> int:
-    row = text.split("\n")[line - 1]
-    return len(row) - len(row.lstrip()) + 1
-
-
 # ---------------------------------------------------------------------- from the tree to statements
 
 
-def _diagram_at(text: str, token: Token) -> Diagram:
-    """Read the diagram notation in ``token``; its errors point into the movie file."""
-    source = str(token).rstrip()
-    try:
-        return parse_diagram(source)
-    except Located as err:
-        line = token.line + err.line - 1
-        column = (token.column + err.column - 1) if err.line == 1 else err.column
-        raise type(err)(err.reason, text, line, column) from None
-    except MoviesError as err:
-        raise MovieInputError(str(err), text, token.line, token.column) from None
+class _Reader:
+    """Turns the parse tree's statements into :class:`Statement` records, one pass over the
+    text's lines (split once), every number checked against the digits limit."""
 
+    def __init__(self, text: str) -> None:
+        self.text = text
+        self.lines = Lines(text)
 
-def _polynomial_at(text: str, token: Token, variable: str = "t") -> LaurentPolynomial:
-    try:
-        return LaurentPolynomial.parse(str(token).strip(), variable=variable)
-    except Exception as err:  # the polynomial reader's own errors are not ours; say where
-        raise MovieInputError(f"cannot read the polynomial '{str(token).strip()}': {err}", text, token.line, token.column) from None
+    def number(self, token: Token) -> int:
+        return read_int(token, self.text)
 
+    def diagram(self, token: Token) -> Diagram:
+        """Read the diagram notation in ``token``; its errors point into the movie file."""
+        source = str(token).rstrip()
+        try:
+            return parse_diagram(source)
+        except LocatedError as err:
+            line = token.line + err.line - 1
+            column = (token.column + err.column - 1) if err.line == 1 else err.column
+            raise err.moved(self.text, line, column) from None
+        except InternalError:
+            raise
+        except MoviesError as err:
+            raise MovieInputError(str(err), self.text, token.line, token.column) from None
 
-def _names(tree: Tree | None) -> dict[str, tuple[int, ...]]:
-    chosen: dict[str, list[int]] = {}
-    if tree is None:
-        return {}
-    for group in tree.children:
-        kind = str(group.children[0]).rstrip("s")
-        chosen.setdefault(kind + "s", []).extend(int(t) for t in group.children[1:])
-    return {kind: tuple(values) for kind, values in chosen.items()}
+    def digits_in(self, token: Token) -> None:
+        """Refuse a number inside free text (a polynomial, a value) that has too many digits."""
+        for run in re.finditer(r"[0-9]+", str(token)):
+            check_digits(run.group(), self.text, token.line, token.column + run.start())
 
+    def polynomial(self, token: Token, variable: str = "t") -> LaurentPolynomial:
+        self.digits_in(token)
+        try:
+            return LaurentPolynomial.parse(str(token).strip(), variable=variable)
+        except (ValueError, ArithmeticError) as err:  # the polynomial reader's own errors; say where
+            raise MovieInputError(f"cannot read the polynomial '{str(token).strip()}': {err}",
+                                  self.text, token.line, token.column) from None
 
-def _face(tree: Tree | None) -> int | None:
-    return None if tree is None else int(tree.children[0])
+    def names(self, tree: Tree | None) -> dict[str, tuple[int, ...]]:
+        chosen: dict[str, list[int]] = {}
+        if tree is None:
+            return {}
+        for group in tree.children:
+            kind = str(group.children[0]).rstrip("s")
+            chosen.setdefault(kind + "s", []).extend(self.number(t) for t in group.children[1:])
+        return {kind: tuple(values) for kind, values in chosen.items()}
 
+    def face(self, tree: Tree | None) -> int | None:
+        return None if tree is None else self.number(tree.children[0])
 
-def _statement(text: str, tree: Tree) -> Statement:
-    kind = tree.data
-    line, column = tree.meta.line, tree.meta.column
-    source = text.split("\n")[line - 1]
-    c = tree.children
-    make = lambda k, **args: Statement(k, line, column, source, args)  # noqa: E731
-    if kind == "title":
-        return make("title", text=str(c[0]).strip() if c and c[0] is not None else "")
-    if kind == "first":
-        return make("start", diagram=_diagram_at(text, c[0]), spec=str(c[0]).strip())
-    if kind == "band":
-        return make("band", first=int(c[0]), second=int(c[1]), face=_face(c[2]), names=_names(c[3]))
-    if kind == "r1_add":
-        hand = "L" if str(c[1]) in ("left", "L") else "R"
-        return make("R1+", edge=int(c[0]), hand=hand, sign=+1 if str(c[2]) == "+" else -1, names=_names(c[3]))
-    if kind == "r1_remove":
-        return make("R1-", crossing=int(c[0]), kink=None if c[1] is None else int(c[1]))
-    if kind == "r2_add":
-        return make("R2+", over=int(c[0]), under=int(c[1]), face=_face(c[2]), names=_names(c[3]))
-    if kind == "r2_remove":
-        return make("R2-", face=_face(c[0]))
-    if kind == "r3":
-        return make("R3", face=_face(c[0]), names=_names(c[1]))
-    if kind == "birth":
-        return make("birth", counterclockwise=c[0] is None or str(c[0]) == "ccw", face=_face(c[1]), names=_names(c[2]))
-    if kind == "death":
-        return make("death", component=int(c[0]))
-    if kind == "twist":
-        return make("twist", turns=+1 if str(c[0]) == "+1" else -1, edges=tuple(int(t) for t in c[1].children),
-                    start_face=_face(c[2]), names=_names(c[3]))
-    if kind == "simplify":
-        return make("simplify", **_target(text, c[0]))
-    if kind == "isotopic":
-        return make("isotopic", diagram=_diagram_at(text, c[0]), spec=str(c[0]).strip())
-    if kind.startswith("expect_"):
-        return make("expect", **_expectation(text, kind, c))
-    if kind == "claim":
-        return make("surface", facts=[_fact(f) for f in c])
-    if kind == "budget":
-        return make("budget", seconds=int(c[0]))
-    raise AssertionError(f"unknown statement {kind}")  # pragma: no cover
+    def statement(self, tree: Tree) -> Statement:
+        kind = tree.data
+        line, column = tree.meta.line, tree.meta.column
+        source = self.lines[line]
+        c = tree.children
+        number, names, face = self.number, self.names, self.face
+        make = lambda k, **args: Statement(k, line, column, source, args)  # noqa: E731
+        if kind == "title":
+            return make("title", text=str(c[0]).strip() if c and c[0] is not None else "")
+        if kind == "first":
+            return make("start", diagram=self.diagram(c[0]), spec=str(c[0]).strip())
+        if kind == "band":
+            return make("band", first=number(c[0]), second=number(c[1]), face=face(c[2]), names=names(c[3]))
+        if kind == "r1_add":
+            hand = "L" if str(c[1]) in ("left", "L") else "R"
+            return make("R1+", edge=number(c[0]), hand=hand, sign=+1 if str(c[2]) == "+" else -1, names=names(c[3]))
+        if kind == "r1_remove":
+            return make("R1-", crossing=number(c[0]), kink=None if c[1] is None else number(c[1]))
+        if kind == "r2_add":
+            return make("R2+", over=number(c[0]), under=number(c[1]), face=face(c[2]), names=names(c[3]))
+        if kind == "r2_remove":
+            return make("R2-", face=face(c[0]))
+        if kind == "r3":
+            return make("R3", face=face(c[0]), names=names(c[1]))
+        if kind == "birth":
+            return make("birth", counterclockwise=c[0] is None or str(c[0]) == "ccw", face=face(c[1]), names=names(c[2]))
+        if kind == "death":
+            return make("death", component=number(c[0]))
+        if kind == "twist":
+            return make("twist", turns=+1 if str(c[0]) == "+1" else -1, edges=tuple(number(t) for t in c[1].children),
+                        start_face=face(c[2]), names=names(c[3]))
+        if kind == "simplify":
+            return make("simplify", **self.target(c[0]))
+        if kind == "isotopic":
+            return make("isotopic", diagram=self.diagram(c[0]), spec=str(c[0]).strip())
+        if kind.startswith("expect_"):
+            return make("expect", **self.expectation(kind, c))
+        if kind == "claim":
+            return make("surface", facts=[self.fact(f) for f in c])
+        if kind == "budget":
+            return make("budget", seconds=self.budget(c[0]))
+        raise InternalError(f"a statement the reader does not know: {kind}")  # pragma: no cover
 
+    def budget(self, token: Token) -> int:
+        seconds = self.number(token)
+        try:
+            limits.check("seconds", seconds, f"budget {seconds} seconds would let one search run {seconds} seconds")
+        except LimitError as err:
+            raise LocatedLimitError(str(err), self.text, token.line, token.column) from None
+        return seconds
 
-def _target(text: str, token: Token | None) -> dict[str, Any]:
-    if token is None:
-        return {"target": "fewest"}
-    words = str(token).split()
-    if words == ["crossingless"]:
-        return {"target": "crossingless"}
-    if len(words) == 2 and words[0].isdigit() and words[1] in ("crossings", "crossing"):
-        return {"target": "crossings", "crossings": int(words[0])}
-    return {"target": "diagram", "diagram": _diagram_at(text, token), "spec": str(token).strip()}
+    def target(self, token: Token | None) -> dict[str, Any]:
+        if token is None:
+            return {"target": "fewest"}
+        words = str(token).split()
+        if words == ["crossingless"]:
+            return {"target": "crossingless"}
+        if len(words) == 2 and re.fullmatch(r"[0-9]+", words[0]) and words[1] in ("crossings", "crossing"):
+            self.digits_in(token)
+            return {"target": "crossings", "crossings": int(words[0])}
+        return {"target": "diagram", "diagram": self.diagram(token), "spec": str(token).strip()}
 
+    def expectation(self, kind: str, c: list) -> dict[str, Any]:
+        if kind == "expect_components":
+            return {"what": "components", "value": self.number(c[0])}
+        if kind == "expect_crossings":
+            return {"what": "crossings", "value": self.number(c[0])}
+        if kind == "expect_crossingless":
+            return {"what": "crossingless"}
+        if kind == "expect_unlink":
+            return {"what": "unlink"}
+        if kind == "expect_isotopic":
+            return {"what": "isotopic", "diagram": self.diagram(c[0]), "spec": str(c[0]).strip()}
+        invariant, value = str(c[0]), c[1]
+        if invariant in ("jones", "alexander"):
+            return {"what": invariant, "value": self.polynomial(value)}
+        words = str(value).strip()
+        if not re.fullmatch(r"[+-]?[0-9]+", words):
+            raise MovieInputError(f"the {invariant} is an integer, not '{words}'", self.text, value.line, value.column)
+        self.digits_in(value)
+        return {"what": invariant, "value": int(words)}
 
-def _expectation(text: str, kind: str, c: list) -> dict[str, Any]:
-    if kind == "expect_components":
-        return {"what": "components", "value": int(c[0])}
-    if kind == "expect_crossings":
-        return {"what": "crossings", "value": int(c[0])}
-    if kind == "expect_crossingless":
-        return {"what": "crossingless"}
-    if kind == "expect_unlink":
-        return {"what": "unlink"}
-    if kind == "expect_isotopic":
-        return {"what": "isotopic", "diagram": _diagram_at(text, c[0]), "spec": str(c[0]).strip()}
-    invariant, value = str(c[0]), c[1]
-    if invariant in ("jones", "alexander"):
-        return {"what": invariant, "value": _polynomial_at(text, value)}
-    words = str(value).strip()
-    try:
-        number = int(words)
-    except ValueError:
-        raise MovieInputError(f"the {invariant} is an integer, not '{words}'", text, value.line, value.column) from None
-    return {"what": invariant, "value": number}
-
-
-def _fact(tree: Tree) -> tuple[str, int | None]:
-    name = {"surface_components": "components"}.get(tree.data, tree.data)
-    return (name, int(tree.children[0]) if tree.children else None)
+    def fact(self, tree: Tree) -> tuple[str, int | None]:
+        name = {"surface_components": "components"}.get(tree.data, tree.data)
+        return (name, self.number(tree.children[0]) if tree.children else None)
 
 
 def parse_movie(text: str) -> Movie:
@@ -344,17 +366,29 @@ def parse_movie(text: str) -> Movie:
     ------
     MovieSyntaxError
         Text the language cannot read: line, column, and ``context()`` with a caret.
+    LocatedLimitError
+        Text past a limit of :mod:`movies.limits` (lines of the movie, digits of a number, the
+        limits of each diagram), refused before the statements are read.
+
+    Reading takes time in proportion to the length of the text (and the diagrams in it).
 
     >>> parse_movie("start 3_1\\nbnad 2 3")
     Traceback (most recent call last):
     ...
-    movies.language.movie.MovieSyntaxError: no statement starts with 'bnad'; did you mean 'band'? (line 2, column 1)
+    movies.errors.MovieSyntaxError: no statement starts with 'bnad'; did you mean 'band'? (line 2, column 1)
     """
+    if not isinstance(text, str):
+        raise InputError(f"a movie is written as text, not {type(text).__name__}")
+    count = text.count("\n") + 1
+    most = limits.current()["lines"]
+    if count > most:
+        raise LocatedLimitError(limits.exceeds("lines", f"the movie has {count} lines"), text, most + 1, 1)
     try:
         tree = movie_parser().parse(text if text.endswith("\n") else text + "\n")
     except UnexpectedInput as err:
         raise _syntax_error(text, err) from None
-    statements = [_statement(text, child) for child in tree.children]
+    reader = _Reader(text)
+    statements = [reader.statement(child) for child in tree.children]
     starts = [s for s in statements if s.kind == "start"]
     if not starts:
         raise MovieSyntaxError("the movie has no first frame: write 'start DIAGRAM' before the first step", text, 1, 1)

@@ -40,22 +40,41 @@ from __future__ import annotations
 
 import difflib
 import functools
-import importlib.resources
-import pathlib
 import re
 
 from lark import Lark, Token, Tree
 from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput, UnexpectedToken
 
+from movies import limits
 from movies.diagram import constructors
-from movies.diagram.constructors import GeneratorError
 from movies.diagram.model import Diagram
 from movies.diagram.pd import from_pd
 from movies.diagram.tables import canonical_name
-from movies.errors import BraidError, DiagramError, InputError, MoviesError, PDCodeError, TableError
+from movies.errors import (
+    BraidError,
+    GeneratorError,
+    InputError,
+    InternalError,
+    LimitError,
+    Located,
+    LocatedError,
+    LocatedLimitError,
+    MoviesError,
+    SpecBraidError,
+    SpecDiagramError,
+    SpecInputError,
+    SpecPDCodeError,
+    SpecSyntaxError,
+    SpecTableError,
+    TableError,
+    located,
+)
+from movies.language.frontend import check_digits, check_nesting, depth_message, grammar_text, position, read_int
 
 __all__ = [
     "Located",
+    "LocatedError",
+    "LocatedLimitError",
     "SpecSyntaxError",
     "SpecInputError",
     "SpecTableError",
@@ -72,79 +91,6 @@ __all__ = [
 KEYWORDS = ("unknot", "empty", "unlink", "braid", "torus", "pd", "mirror", "reverse")
 
 
-# ---------------------------------------------------------------------- errors
-
-
-class Located(MoviesError):
-    """Where in the text an error is: ``line`` and ``column`` (from 1), and the ``text``.
-
-    ``reason`` is the message without the place; ``str()`` adds the place.
-    """
-
-    def __init__(self, reason: str, text: str, line: int, column: int) -> None:
-        super().__init__(f"{reason} (line {line}, column {column})")
-        self.reason = reason
-        self.text = text
-        self.line = line
-        self.column = column
-
-    def context(self, span: int = 40) -> str:
-        """The offending line (at most ``span`` characters either side) and a caret under the spot.
-
-        >>> err = SpecSyntaxError("unexpected ']'", "3_1 +\\nbraid[1]]", 2, 9)
-        >>> print(err.context())
-        braid[1]]
-                ^
-        """
-        lines = self.text.split("\n")
-        line = lines[self.line - 1] if 0 < self.line <= len(lines) else ""
-        spot = self.column - 1
-        start = max(0, spot - span)
-        before, after = line[start:spot], line[spot:spot + span]
-        pad = "".join("\t" if ch == "\t" else " " for ch in before)
-        return f"{before}{after}\n{pad}^"
-
-
-class SpecSyntaxError(Located, InputError):
-    """Text that the diagram notation cannot read."""
-
-
-class SpecInputError(Located, InputError):
-    """Text that reads but asks for something that cannot be made (``unlink(-1)``, ...)."""
-
-
-class SpecTableError(Located, TableError):
-    """A table name in the text that the tables do not have."""
-
-
-class SpecBraidError(Located, BraidError):
-    """A braid word in the text with a generator or strand count that cannot be used."""
-
-
-class SpecPDCodeError(Located, PDCodeError):
-    """A PD code in the text that is not the code of a diagram."""
-
-
-class SpecDiagramError(Located, DiagramError):
-    """An edge, face or component number in the text that its diagram does not have."""
-
-
-_LOCATED = (
-    (TableError, SpecTableError),
-    (BraidError, SpecBraidError),
-    (PDCodeError, SpecPDCodeError),
-    (DiagramError, SpecDiagramError),
-    (MoviesError, SpecInputError),
-)
-
-
-def _located(err: MoviesError, text: str, line: int, column: int) -> Located:
-    for base, located in _LOCATED:
-        if isinstance(err, base):
-            return located(str(err), text, line, column)
-    raise TypeError(f"not an error of the package: {err!r}")  # pragma: no cover
-
-
 # ---------------------------------------------------------------------- the parser
 
 
@@ -154,12 +100,7 @@ def diagram_grammar() -> str:
     >>> diagram_grammar().count("-> connected_sum")
     1
     """
-    try:
-        resource = importlib.resources.files("movies.grammar") / "diagram.lark"
-    except ModuleNotFoundError:
-        # a source checkout run in place: the grammar folder sits beside the package
-        resource = pathlib.Path(__file__).resolve().parents[2] / "grammar" / "diagram.lark"
-    return resource.read_text(encoding="utf-8")
+    return grammar_text("diagram.lark")
 
 
 @functools.cache
@@ -177,25 +118,64 @@ def parse_diagram(text: str) -> Diagram:
 
     Parameters: ``text``, one diagram in the notation of the module docstring (line breaks
     allowed). Returns a new :class:`~movies.diagram.model.Diagram`. Raises
-    :class:`SpecSyntaxError` for text that does not read, and the located errors
+    :class:`SpecSyntaxError` for text that does not read, the located errors
     (:class:`SpecTableError`, :class:`SpecBraidError`, :class:`SpecPDCodeError`,
     :class:`SpecDiagramError`, :class:`SpecInputError`) for text that reads but names what
-    does not exist; all carry ``line``, ``column`` and ``context()``.
+    does not exist, and :class:`LocatedLimitError` for text past a limit of
+    :mod:`movies.limits` (checked before the diagram is built); all carry ``line``, ``column``
+    and ``context()``.
 
     >>> parse_diagram("braid(3)[1, -2, 1, -2]").crossing_count()
     4
     >>> parse_diagram("3_99")
     Traceback (most recent call last):
     ...
-    movies.language.spec.SpecTableError: no knot named '3_99': the table's 3_… run from 3_1 to 3_1 (line 1, column 1)
+    movies.errors.SpecTableError: no knot named '3_99': the table's 3_… run from 3_1 to 3_1 (line 1, column 1)
+    >>> parse_diagram("torus(2, 1000000000)")
+    Traceback (most recent call last):
+    ...
+    movies.errors.LocatedLimitError: torus(2, 1000000000) would have 1000000000 crossings; the limit is 2000 (raise it with --limit crossings=N) (line 1, column 1)
     """
     if not isinstance(text, str):
         raise InputError(f"a diagram is written as text, not {type(text).__name__}")
+    check_nesting(text)
     try:
         tree = diagram_parser().parse(text)
     except UnexpectedInput as err:
         raise _syntax_error(text, err) from None
-    return _Builder(text).build(tree.children[0])
+    root = tree.children[0]
+    _check_tree(text, root)
+    return _Builder(text).build(root)
+
+
+#: the parts of the tree that hold diagrams, by the kind of node
+_PARTS = {"mirror": (0,), "reverse": (0,), "union": (0, 2), "connected_sum": (0, 2)}
+
+
+def _check_tree(text: str, root) -> None:
+    """Before anything is built: every number within the digits limit, and diagrams made of
+    diagrams (``#``, ``+``, mirror, reverse) nested no deeper than the depth limit."""
+    deepest = limits.current()["depth"]
+    stack = [(root, 0)]
+    while stack:
+        node, depth = stack.pop()
+        if isinstance(node, Token):
+            if node.type == "INT":
+                check_digits(str(node), text, node.line, node.column)
+            elif node.type == "TABLE_NAME":
+                for run in re.finditer(r"[0-9]+", str(node)):
+                    line, column = position(str(node), run.start())
+                    check_digits(run.group(), text, node.line + line - 1,
+                                 column + (node.column - 1 if line == 1 else 0))
+            continue
+        if node is None:
+            continue
+        if node.data in _PARTS:
+            depth += 1
+            if depth > deepest:
+                raise LocatedLimitError(depth_message(depth, "diagrams ('#', '+', mirror, reverse)"),
+                                        text, node.meta.line, node.meta.column)
+        stack.extend((child, depth) for child in node.children)
 
 
 # ---------------------------------------------------------------------- syntax errors
@@ -245,10 +225,7 @@ _CLOSERS = {close: open_ for open_, close in _OPENERS.items()}
 _DESCRIPTIONS = {"TABLE_NAME": "a table name", "INT": "an integer", "WORD": "a word", "$END": "the end of the text"}
 
 
-def _position(text: str, offset: int) -> tuple[int, int]:
-    """Line and column (from 1) of a character offset."""
-    line = text.count("\n", 0, offset) + 1
-    return line, offset - (text.rfind("\n", 0, offset) + 1) + 1
+_position = position
 
 
 def _end_offset(text: str) -> int:
@@ -329,11 +306,14 @@ def _accepts(text: str) -> set[str]:
     """The terminals the parser would take at the spot where ``text`` stops reading.
 
     LALR tables merge look-aheads across contexts, so the error's own list can name tokens
-    that would fail a step later; feeding each candidate from the state just before the bad
-    token tells the truth.
+    that would fail a step later; asking the parser in the state just before the bad token
+    tells the truth. That state is rebuilt by feeding the tokens read so far once more: two
+    passes over the text, where keeping a copy of the state at every token would cost the
+    square of its length.
     """
     interactive = diagram_parser().parse_interactive(text)
     tokens = interactive.lexer_thread.lex(interactive.parser_state)
+    read: list[Token] = []
     while True:
         try:
             token = next(tokens)
@@ -341,17 +321,24 @@ def _accepts(text: str) -> set[str]:
             break
         except UnexpectedInput:  # the lexer found no token here: the state is as it was
             return set(interactive.accepts())
-        before = interactive.copy()
         try:
             interactive.feed_token(token)
         except UnexpectedInput:
-            return set(before.accepts())
-    before = interactive.copy()
+            return _accepts_after(text, read)
+        read.append(token)
     try:
         interactive.feed_eof()
     except UnexpectedInput:
-        return set(before.accepts())
+        return _accepts_after(text, read)
     return set()  # pragma: no cover - the text parses
+
+
+def _accepts_after(text: str, read: list[Token]) -> set[str]:
+    """What the parser takes after the tokens ``read`` (which it took one by one before)."""
+    again = diagram_parser().parse_interactive(text)
+    for token in read:
+        again.feed_token(token)
+    return set(again.accepts())
 
 
 def _syntax_error(text: str, err: UnexpectedInput) -> Located:
@@ -393,25 +380,45 @@ def _syntax_error(text: str, err: UnexpectedInput) -> Located:
 
 
 class _Builder:
-    """Turns a parse tree into a diagram, pointing errors at the part of the text at fault."""
+    """Turns a parse tree into a diagram, pointing errors at the part of the text at fault.
+
+    The tree is walked with a stack of its own, not by recursion, so that how deep a diagram
+    may nest is a limit of :mod:`movies.limits` and never Python's.
+    """
 
     def __init__(self, text: str) -> None:
         self.text = text
 
-    def fail(self, err: MoviesError, where) -> Located:
-        return _located(err, self.text, where.line, where.column)
+    def fail(self, err: MoviesError, where) -> LocatedError:
+        return located(err, self.text, where.line, where.column)
 
     def where(self, node):
         return node.meta if isinstance(node, Tree) else node
 
-    def build(self, node) -> Diagram:
+    def build(self, root) -> Diagram:
+        built: dict[int, Diagram] = {}
+        stack = [(root, False)]
+        while stack:
+            node, ready = stack.pop()
+            parts = _PARTS.get(node.data, ())
+            if parts and not ready:
+                stack.append((node, True))
+                stack.extend((node.children[i], False) for i in reversed(parts))
+                continue
+            built[id(node)] = self.make(node, [built.pop(id(node.children[i])) for i in parts])
+        return built[id(root)]
+
+    def make(self, node, parts: list[Diagram]) -> Diagram:
         method = getattr(self, f"_{node.data}")
         try:
-            return method(node, *node.children)
-        except Located:
+            return method(node, *parts) if parts else method(node, *node.children)
+        except (LocatedError, InternalError):
             raise
         except MoviesError as err:
             raise self.fail(err, self.where(node)) from None
+
+    def number(self, token: Token) -> int:
+        return read_int(token, self.text)
 
     def _table(self, node, name: Token) -> Diagram:
         return constructors.from_table(str(name))
@@ -426,57 +433,62 @@ class _Builder:
         raise SpecSyntaxError(_unknown_word(str(word)), self.text, word.line, word.column)
 
     def _unlink(self, node, count: Token) -> Diagram:
-        if int(count) < 0:
+        if self.number(count) < 0:
             raise SpecInputError(f"an unlink has 0 or more circles, not {count}", self.text, count.line, count.column)
-        return constructors.unlink(int(count))
+        return constructors.unlink(self.number(count))
 
     def _torus(self, node, p: Token, q: Token) -> Diagram:
-        return constructors.torus_link(int(p), int(q))
+        return constructors.torus_link(self.number(p), self.number(q))
 
     def _braid(self, node, strands: Tree | None, word: Tree) -> Diagram:
-        generators = [int(token) for token in word.children]
-        count = int(strands.children[0]) if strands is not None else None
+        generators = [self.number(token) for token in word.children]
+        count = self.number(strands.children[0]) if strands is not None else None
         try:
             return constructors.from_braid(generators, count)
         except GeneratorError as err:
             raise self.fail(err, word.children[err.position - 1]) from None
+        except LimitError as err:
+            if err.position is not None:
+                raise self.fail(err, word.children[err.position - 1]) from None
+            raise self.fail(err, strands.children[0] if strands is not None else node.meta) from None
         except BraidError as err:
             raise self.fail(err, strands.children[0] if strands is not None else node.meta) from None
 
     def _pd(self, node, code: Tree) -> Diagram:
         rows = []
+        limits.check("crossings", len(code.children), f"the PD code has {len(code.children)} crossings")
         for index, crossing in enumerate(code.children, start=1):
             if len(crossing.children) != 4:
                 raise SpecPDCodeError(
                     f"crossing {index} of the PD code has {len(crossing.children)} label"
                     f"{'' if len(crossing.children) == 1 else 's'}, not 4",
                     self.text, crossing.meta.line, crossing.meta.column)
-            rows.append([int(label) for label in crossing.children])
+            rows.append([self.number(label) for label in crossing.children])
         return from_pd(rows)
 
-    def _mirror(self, node, inner) -> Diagram:
-        return constructors.mirror(self.build(inner))
+    def _mirror(self, node, inner: Diagram) -> Diagram:
+        return constructors.mirror(inner)
 
-    def _reverse(self, node, inner, *numbers: Token) -> Diagram:
-        diagram = self.build(inner)
+    def _reverse(self, node, diagram: Diagram) -> Diagram:
+        numbers = node.children[1:]
         for number in numbers:
-            if int(number) not in diagram.components:
+            if self.number(number) not in diagram.components:
                 raise SpecDiagramError(
                     f"component {number} is not in the diagram "
                     f"(components: {sorted(diagram.components)})", self.text, number.line, number.column)
-        return constructors.reverse(diagram, [int(n) for n in numbers] if numbers else None)
+        return constructors.reverse(diagram, [self.number(n) for n in numbers] if numbers else None)
 
-    def _union(self, node, left, places: Tree | None, right) -> Diagram:
-        first, second = self.build(left), self.build(right)
+    def _union(self, node, first: Diagram, second: Diagram) -> Diagram:
+        places = node.children[1]
         if places is None:
             return constructors.disjoint_union(first, second)
         face, other = places.children
         self.check_name(first.faces, face, "face", "first")
         self.check_name(second.faces, other, "face", "second")
-        return constructors.disjoint_union(first, second, int(face), int(other))
+        return constructors.disjoint_union(first, second, self.number(face), self.number(other))
 
-    def _connected_sum(self, node, left, places: Tree | None, right) -> Diagram:
-        first, second = self.build(left), self.build(right)
+    def _connected_sum(self, node, first: Diagram, second: Diagram) -> Diagram:
+        left, places, right = node.children
         for diagram, side, which in ((first, left, "first"), (second, right, "second")):
             if diagram.is_empty():
                 raise SpecDiagramError(f"the {which} diagram of the connected sum is empty; "
@@ -487,9 +499,9 @@ class _Builder:
         edge, other = places.children
         self.check_name(first.edges(), edge, "edge", "first")
         self.check_name(second.edges(), other, "edge", "second")
-        return constructors.connected_sum(first, second, int(edge), int(other))
+        return constructors.connected_sum(first, second, self.number(edge), self.number(other))
 
     def check_name(self, names, token: Token, kind: str, which: str) -> None:
-        if int(token) not in names:
+        if self.number(token) not in names:
             raise SpecDiagramError(f"{kind} {token} is not in the {which} diagram "
                                    f"({kind}s: {sorted(names)})", self.text, token.line, token.column)

@@ -12,7 +12,7 @@ from __future__ import annotations
 from movies.diagram import moves
 from movies.diagram.model import Diagram
 from movies.draw.svg import Highlight
-from movies.errors import MoviesError
+from movies.errors import InternalError, MoviesError
 from movies.language.movie import Statement
 
 
@@ -21,6 +21,8 @@ def _band_face(diagram: Diagram, first: int, second: int, face: int | None) -> t
         return (face,)
     try:
         shared = moves.common_faces(diagram, first, second)
+    except InternalError:
+        raise
     except MoviesError:
         return ()
     return tuple(shared[:1]) if len(shared) == 1 else tuple(shared)
@@ -63,9 +65,13 @@ def place_of(statement: Statement, diagram: Diagram) -> Highlight:
             # the gate: the edges it crosses and the faces it runs through
             try:
                 faces = moves.twist(diagram, a["edges"], a["turns"], a.get("start_face")).gate_faces
+            except InternalError:
+                raise
             except MoviesError:
                 faces = ()
             return Highlight(edges=tuple(a["edges"]), faces=tuple(faces))
+    except InternalError:
+        raise
     except MoviesError:
         # the statement names something the frame lacks (an invalid step): mark what can be marked
         return Highlight(edges=tuple(v for k, v in a.items() if k in ("edge", "first", "second", "over", "under"))

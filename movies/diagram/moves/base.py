@@ -9,10 +9,11 @@ from __future__ import annotations
 import functools
 from dataclasses import dataclass
 
-from movies.diagram.assembly import Hints, NameInUseError, assemble
+from movies.diagram.assembly import Hints, assemble
+from movies.errors import NameInUseError
 
 from movies.diagram.model import Dart, Diagram, Side
-from movies.errors import DiagramError, MoveError
+from movies.errors import DiagramError, InternalError, MoveError
 
 
 @dataclass(frozen=True)
@@ -72,7 +73,7 @@ def _rebuild(previous: Diagram, crossings, signs, loops, hints: Hints) -> Diagra
     except NameInUseError as err:
         raise MoveError(str(err)) from None
     except DiagramError as err:  # pragma: no cover - a move that breaks planarity is a bug
-        raise MoveError(f"internal error, the move produced an invalid diagram: {err}") from err
+        raise InternalError(f"the move produced an invalid diagram: {err}") from err
 
 
 def _check_edge(diagram: Diagram, edge: int) -> None:

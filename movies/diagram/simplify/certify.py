@@ -38,7 +38,7 @@ from movies.diagram.simplify.search import (
     Budget, Meter, SimplifyResult, Step, _greedy, child_key, descend, undoable,
 )
 from movies.diagram.simplify.search import simplify as simplify_by_count
-from movies.errors import DiagramError, MoveError
+from movies.errors import DiagramError, InternalError, MoveError
 
 __all__ = ["IsotopyCertificate", "certify_isotopy", "rename"]
 
@@ -257,17 +257,17 @@ def certify_within(first: Diagram, second: Diagram, meter: Meter, lift: int = 1)
     # worked out on the frames themselves (names are kept by a reflection, sides are not)
     undos = [inverse(frames[i], step.record, frames[i + 1]) for i, step in enumerate(b_steps)]
     if any(undo is None for undo in undos):  # pragma: no cover - undoable() was checked
-        raise DiagramError("internal error: a move of the second side has no undoing move")
+        raise InternalError("a move of the second side has no undoing move")
     names = _match(current, frames[-1])
     for i in range(len(b_steps), 0, -1):
         if names is None:
-            raise DiagramError("internal error: the frames of the certificate do not match")
+            raise InternalError("the frames of the certificate do not match")
         record = translate(undos[i - 1], _invert(names))
         current = apply(record, current)
         moves.append(record)
         names = _match(current, frames[i - 1])
     if names is None:
-        raise DiagramError("internal error: the certificate does not end at the second diagram")
+        raise InternalError("the certificate does not end at the second diagram")
     return IsotopyCertificate(first, second, moves, current, names, reflected, meter.used)
 
 

@@ -21,7 +21,7 @@ from typing import Iterable, Sequence
 from movies.diagram import moves
 from movies.diagram.isotopy import same_on_sphere
 from movies.diagram.model import Dart, Diagram, Side
-from movies.errors import DiagramError, MoveError
+from movies.errors import InternalError, MoveError
 
 __all__ = ["KINDS", "CHANGE", "MoveRecord", "apply", "replay", "candidates", "inverse", "translate"]
 
@@ -255,7 +255,7 @@ def inverse(before: Diagram, record: MoveRecord, after: Diagram) -> MoveRecord |
         for trial in _undoing_removals(before, record, after):
             if same_on_sphere(apply(trial, after), before):
                 return trial
-        raise DiagramError(f"internal error: nothing undoes the move {record}")
+        raise InternalError(f"nothing undoes the move {record}")
     new_loops = sorted(after.loops - before.loops)
     if kind == "R1-":
         kink = record.kink if record.kink is not None else max(moves.kinks_at(before, record.crossing))
@@ -267,7 +267,7 @@ def inverse(before: Diagram, record: MoveRecord, after: Diagram) -> MoveRecord |
                 trial = MoveRecord("R1+", edge=edge, hand=hand, sign=sign)
                 if same_on_sphere(apply(trial, after), before):
                     return trial
-        raise DiagramError("internal error: no kink undoes the R1 removal")
+        raise InternalError("no kink undoes the R1 removal")
     # R2-: push the strand that was over back across the face where the bigon was; the
     # edges arriving at the bigon keep their names, so (over in, under in) is tried first
     bigon = [side.edge for side in before.faces[record.face][0]]
