@@ -8,6 +8,7 @@ from movies.diagram.tables import table_names, table_row
 from movies.homology import rasmussen_s
 from movies.homology.canonical import _check_cycle, canonical_complex, checkerboard, s_from_canonical
 from movies.errors import InternalError
+from movies.homology.errors import HomologyError
 from movies.homology.scanning import FinalComplex
 from movies.language.spec import parse_diagram
 
