@@ -1,10 +1,10 @@
 """A long sweep of the diagram tests (run as ``python tests/bench/sweep_diagrams.py [scale]``).
 
 1. Every row of the KnotInfo table: the signs read from ``pd_notation`` against the independent
-   reading of tests/test_pd.py; positive table diagrams have negative ``signature``; knots whose
+   reading of tests/diagram/test_pd.py; positive table diagrams have negative ``signature``; knots whose
    ``positive`` column is ``N`` have no positive table diagram.
 2. Every row of the LinkInfo table: ``linking_matrix`` and ``components``.
-3. tests/test_pd.py, tests/test_model.py and tests/test_moves.py with every property test run
+3. tests/diagram/test_pd.py, tests/diagram/test_model.py and tests/diagram/test_moves.py with every property test run
    ``scale`` times as many examples (default 10).
 
 Prints what it checked; exit status 1 when anything disagrees.
@@ -67,7 +67,7 @@ def main() -> int:
     env = dict(os.environ, MOVIES_SWEEP_SCALE=scale, PYTHONPATH=str(ROOT))
     run = subprocess.run(
         [sys.executable, "-m", "pytest", "-q", "-p", "no:cacheprovider",
-         "tests/test_pd.py", "tests/test_model.py", "tests/test_moves.py"],
+         "tests/diagram/test_pd.py", "tests/diagram/test_model.py", "tests/diagram/test_moves.py"],
         cwd=ROOT, env=env,
     )
     print(f"property tests at scale {scale}: exit status {run.returncode} ({time.perf_counter() - start:.1f} s)")

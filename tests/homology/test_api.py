@@ -15,8 +15,8 @@ from movies.homology import (
     poincare_polynomial,
     rasmussen_s,
 )
+from support.diagrams import TREFOIL_PD as TREFOIL
 
-TREFOIL = [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]
 
 
 def test_unknot_and_unlinks():
@@ -76,8 +76,7 @@ def test_interrupt_leaves_nothing_behind():
     assert rasmussen_s(from_braid([1, 1, 1, 1, 1])) == 4
 
 
-def test_errors():
-    hopf = from_pd([[4, 1, 3, 2], [2, 3, 1, 4]])
+def test_errors(hopf):
     with pytest.raises(NotAKnotError, match="2 components"):
         rasmussen_s(hopf)
     with pytest.raises(FieldError, match="not a prime"):

@@ -29,8 +29,8 @@ from movies.invariants.signature import (
     signature,
 )
 from support.knotinfo_columns import parse_four_genus, parse_int, parse_matrix
+from support.diagrams import TREFOIL_PD as TREFOIL
 
-TREFOIL = [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]
 FIGURE_EIGHT = [[4, 2, 5, 1], [8, 6, 1, 5], [6, 3, 7, 4], [2, 7, 3, 8]]
 
 KNOT_NAMES = [name for name in table_names("knot", max_crossings=12) if name != "0_1"]

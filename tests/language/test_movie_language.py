@@ -146,7 +146,7 @@ def test_the_reference_page_statements_read():
     from pathlib import Path
     import re
 
-    page = (Path(__file__).resolve().parents[1] / "grammar" / "README.md").read_text(encoding="utf-8")
+    page = (Path(__file__).resolve().parents[2] / "grammar" / "README.md").read_text(encoding="utf-8")
     section = page.split("## Writing a movie", 1)[1].split("### Verdicts", 1)[0]
     rows = [line for line in section.splitlines() if line.startswith("| `")]
     snippets = [re.findall(r"`([^`]+)`", row.split("|")[1])[0] for row in rows]

@@ -7,7 +7,7 @@ import pytest
 
 from movies.cli.main import main
 
-EXAMPLES = Path(__file__).resolve().parents[1] / "examples" / "movies"
+EXAMPLES = Path(__file__).resolve().parents[2] / "examples" / "movies"
 
 
 def _floats(value, path="$"):

@@ -23,8 +23,8 @@ from movies.diagram.model import Diagram, Side
 from movies.diagram.pd import from_pd
 from movies.diagram.tables import lookup, table_names, table_row
 from movies.errors import DiagramError, MoviesError
+from support.diagrams import TREFOIL_PD as TREFOIL
 
-TREFOIL = [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]
 
 
 # ---------------------------------------------------------------------- helpers

@@ -34,9 +34,9 @@ from movies.language.spec import (
     diagram_parser,
     parse_diagram,
 )
+from support.diagrams import TREFOIL_PD
 
-ROOT = pathlib.Path(__file__).resolve().parents[1]
-TREFOIL_PD = [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]
+ROOT = pathlib.Path(__file__).resolve().parents[2]
 
 
 def error_of(text: str) -> Located:

@@ -9,7 +9,7 @@ import pytest
 
 from movies.cli.main import main
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[2]
 
 
 def run(capsys, *argv):

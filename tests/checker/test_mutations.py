@@ -17,7 +17,7 @@ from movies.diagram import moves
 from movies.errors import MoveError
 from movies.language.movie import parse_movie
 
-EXAMPLES = Path(__file__).resolve().parents[1] / "examples" / "movies"
+EXAMPLES = Path(__file__).resolve().parents[2] / "examples" / "movies"
 VERIFIED = ["square-knot-ribbon", "8_20-ribbon", "5_2-sum-ribbon", "5_2-to-5_1-genus-one",
             "trefoil-concordance", "trefoil-moebius-band"]
 PER_EXAMPLE = 12

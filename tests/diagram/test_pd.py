@@ -16,9 +16,8 @@ from hypothesis import strategies as st
 from movies.diagram.pd import crossing_signs, from_pd, normalize_pd
 from movies.errors import InputError, MoviesError, PDCodeError
 from support.knotinfo_columns import parse_laurent, parse_matrix
+from support.diagrams import TREFOIL_PD as TREFOIL, HOPF_PD as HOPF_NEGATIVE
 
-TREFOIL = [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]
-HOPF_NEGATIVE = [[4, 1, 3, 2], [2, 3, 1, 4]]
 
 #: tests/bench/sweep_diagrams.py raises this for long runs; 1 keeps the default run fast
 SCALE = int(os.environ.get("MOVIES_SWEEP_SCALE", "1"))

@@ -24,9 +24,8 @@ from movies.diagram.moves import (
 )
 from movies.diagram.pd import from_pd
 from movies.errors import MoveError
+from support.diagrams import TREFOIL_PD as TREFOIL, HOPF_PD as HOPF
 
-TREFOIL = [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]
-HOPF = [[4, 1, 3, 2], [2, 3, 1, 4]]
 POSITIVE_HOPF = [[4, 2, 3, 1], [2, 4, 1, 3]]
 FIGURE_EIGHT = [[4, 2, 5, 1], [8, 6, 1, 5], [6, 3, 7, 4], [2, 7, 3, 8]]
 # the closure of the braid s1 s2 s1 (strand positions 1, 2, 3): a kink at the middle crossing

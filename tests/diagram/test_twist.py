@@ -28,8 +28,8 @@ from movies.diagram.tables import table_names
 from movies.errors import MoveError
 from movies.invariants.jones import jones_polynomial
 from movies.language.spec import parse_diagram
+from support.diagrams import TREFOIL_PD as TREFOIL
 
-TREFOIL = [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]
 
 PROPERTY = settings(max_examples=60, deadline=None, derandomize=True, database=None,
                     suppress_health_check=[HealthCheck.too_slow, HealthCheck.data_too_large])

@@ -18,9 +18,8 @@ from movies.diagram.model import Dart, Diagram, Side, head_positions
 from movies.diagram.pd import crossing_signs, from_pd
 from movies.errors import DiagramError
 from support.knotinfo_columns import parse_braids, parse_matrix
+from support.diagrams import TREFOIL_PD as TREFOIL, HOPF_PD as HOPF
 
-TREFOIL = [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]
-HOPF = [[4, 1, 3, 2], [2, 3, 1, 4]]
 FIGURE_EIGHT = [[4, 2, 5, 1], [8, 6, 1, 5], [6, 3, 7, 4], [2, 7, 3, 8]]
 CURL = [[1, 2, 2, 1]]  # one crossing, two loops: a figure-eight shaped curve
 
@@ -407,10 +406,10 @@ def test_next_names():
         d.next_names("corner", 1)
 
 
-def test_equality_includes_every_name_and_hash_follows_it():
+def test_equality_includes_every_name_and_hash_follows_it(trefoil):
     first, second = from_pd(TREFOIL), from_pd(TREFOIL)
-    assert first == second and hash(first) == hash(second)
-    renamed = from_pd([[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]])
+    assert first == second == trefoil and hash(first) == hash(second)
+    renamed = trefoil
     faces = dict(renamed.faces)
     faces[9] = faces.pop(5)
     relabelled = Diagram(renamed.crossings, renamed.signs, renamed.loops, renamed.components, faces)

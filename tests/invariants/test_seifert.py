@@ -23,8 +23,8 @@ from movies.invariants.alexander import alexander_polynomial, determinant, integ
 from movies.invariants.seifert import seifert_genus_of_surface, seifert_matrix, seifert_surface
 from movies.invariants.signature import nullity, signature
 from support.knotinfo_columns import parse_braids, parse_int, parse_matrix
+from support.diagrams import TREFOIL_PD as TREFOIL
 
-TREFOIL = [[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]
 FIGURE_EIGHT = [[4, 2, 5, 1], [8, 6, 1, 5], [6, 3, 7, 4], [2, 7, 3, 8]]
 POSITIVE_HOPF = [[4, 2, 3, 1], [2, 4, 1, 3]]
 
