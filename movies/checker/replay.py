@@ -20,7 +20,8 @@ from dataclasses import dataclass, field
 
 from movies import limits
 from movies.checker import search
-from movies.diagram import moves
+from movies.diagram.moves import NewNames
+from movies.diagram.steps import MoveRecord, Places, perform, places_named
 from movies.diagram.constructors import unlink
 from movies.diagram.model import Diagram
 from movies.errors import InputError, InternalError, LocatedLimitError, MoveError, MoviesError
@@ -31,7 +32,8 @@ from movies.invariants.signature import signature
 from movies.language.files import read_movie
 from movies.wording import plural
 from movies.language.movie import MOVE_KINDS, Movie, Statement
-from movies.surface.tracker import Surface, Transition, identity_transition, surface_of
+from movies.diagram.steps import Transition, identity_transition
+from movies.surface.tracker import Surface, surface_of
 
 #: how a step note begins when the step is a claim shown false
 REFUTED = "FALSE"
@@ -88,6 +90,7 @@ class CheckResult:
     claims: list[tuple[str, int | None, bool, str]] = field(default_factory=list)  # fact, value, holds, detail
     surface: Surface | None = None
     transitions: list[Transition] = field(default_factory=list)
+    places: list[Places] = field(default_factory=list)  # where each step acts, in the frame before it
     bounds: object = None  # a movies.bounds.verdicts.BoundsReport once judged
 
     @property
@@ -122,85 +125,19 @@ def _names_in(diagram: Diagram) -> str:
     )
 
 
-def _apply_move(diagram: Diagram, statement: Statement) -> tuple[Diagram, Transition, str]:
-    """One explicit move; returns the new frame, what it did to the components, and a note."""
-    a = statement.args
-    kind = statement.kind
-    chosen = moves.NewNames(**{k: tuple(v) for k, v in a.get("names", {}).items()}) if a.get("names") else None
-    if kind == "band":
-        result = moves.saddle(diagram, a["first"], a["second"], a["face"], names=chosen)
-        return result.diagram, band_transition(result), _band_note(result)
-    if kind == "R1+":
-        new = moves.r1_add(diagram, a["edge"], a["hand"], a["sign"], names=chosen)
-    elif kind == "R1-":
-        new = moves.r1_remove(diagram, a["crossing"], a["kink"])
-    elif kind == "R2+":
-        new = moves.r2_add(diagram, a["over"], a["under"], a["face"], names=chosen)
-    elif kind == "R2-":
-        new = moves.r2_remove(diagram, a["face"])
-    elif kind == "R3":
-        new = moves.r3(diagram, a["face"], names=chosen)
-    elif kind == "birth":
-        new = moves.birth(diagram, a["face"], a["counterclockwise"], names=chosen)
-        born = tuple(sorted(set(new.components) - set(diagram.components)))
-        return new, Transition("birth", started=born, births=1), f"component {born[0]} is born"
-    elif kind == "death":
-        new = moves.death(diagram, a["component"])
-        return new, Transition("death", ended=(a["component"],), deaths=1), f"component {a['component']} dies"
-    elif kind == "twist":
-        result = moves.twist(diagram, a["edges"], a["turns"], a["start_face"], names=chosen)
-        gate = tuple((diagram.component_of(edge), d) for edge, d in zip(a["edges"], result.directions))
-        transition = Transition("twist", links=tuple((k, k, True) for k in sorted(diagram.components)),
-                                turns=a["turns"], gate=gate)
-        return result.diagram, transition, twist_note(a["turns"], len(a["edges"]), result.algebraic)
-    else:  # pragma: no cover - the language has no other moves
-        raise InternalError(f"a move the checker does not know: {kind}")
-    return new, identity_transition(kind, sorted(diagram.components)), ""
+def record_of(statement: Statement) -> MoveRecord:
+    """The move record of a move statement of the movie language.
 
-
-def twist_note(turns: int, strands: int, algebraic: int) -> str:
-    """What a twist step says in the report.
-
-    >>> twist_note(+1, 2, 0)
-    'a right-handed full twist on 2 strands (algebraic 0): one blow-up'
-
-    Which summand the blow-up is (CP² or CP²-bar) depends on which end of the movie is the
-    boundary; the surface's report names it (:mod:`movies.bounds.ambient`).
+    >>> from movies.language.movie import parse_movie
+    >>> str(record_of(parse_movie("start unknot\\nR1 add 1 left + new crossings 5").steps[0]))
+    'R1 add 1 left + new crossings 5'
     """
-    hand = "right" if turns > 0 else "left"
-    return f"a {hand}-handed full twist on {strands} strands (algebraic {algebraic}): one blow-up"
-
-
-def band_transition(result: moves.SaddleResult) -> Transition:
-    """The components before and after a band, with their orientations.
-
-    >>> from movies.diagram.constructors import unlink
-    >>> band_transition(moves.saddle(unlink(2), 1, 2)).links
-    ((1, 1, True), (2, 1, True))
-    """
-    before, after = set(result.components_before), set(result.components_after)
-    if result.effect == "merge":
-        merged = min(result.joined)
-        links = tuple((k, merged, k != result.reversed_component) for k in result.joined)
-        return Transition("band", links=links, saddles=1)
-    if result.effect == "split":
-        (old,) = result.joined
-        (new,) = after - before
-        return Transition("band", links=((old, old, True), (old, new, True)), saddles=1)
-    (old,) = result.joined
-    return Transition("band", links=((old, old, True),), twisted=(old,), saddles=1)
-
-
-def _band_note(result: moves.SaddleResult) -> str:
-    joined = " and ".join(map(str, result.joined))
-    what = {
-        "merge": f"merges components {joined}",
-        "split": f"splits component {joined} in two",
-        "twist": f"twists component {joined} (the band makes the surface non-orientable)",
-    }[result.effect]
-    if not result.respects_orientation and result.effect == "merge":
-        what += f"; it does not respect the orientation, component {result.reversed_component} is reversed"
-    return f"band across face {result.face} {what}"
+    args = dict(statement.args)
+    names = args.pop("names", None)
+    if "edges" in args:
+        args["edges"] = tuple(args["edges"])
+    chosen = NewNames(**{k: tuple(v) for k, v in names.items()}) if names else None
+    return MoveRecord(statement.kind, **args, names=chosen)
 
 
 class _Replay:
@@ -277,11 +214,17 @@ class _Replay:
         self.check_size(statement, before)
         try:
             if statement.kind == "simplify":
+                self.result.places.append(Places())
                 new, transition, certified, note, found = self.simplify(statement)
             elif statement.kind == "isotopic":
+                self.result.places.append(Places())
                 new, transition, certified, note, found = self.isotopic(statement)
             else:
-                new, transition, note = _apply_move(before, statement)
+                record = record_of(statement)
+                self.result.places.append(places_named(record))  # what the step names, until it applies
+                outcome = perform(record, before)
+                new, transition, note, self.result.places[-1] = (outcome.diagram, outcome.transition, outcome.note,
+                                                                  outcome.places)
                 certified, found = True, ()
         except MoveError as err:
             self.find("invalid", statement, f"step {self.number} ({statement.kind}) does not apply: {err}",

@@ -68,27 +68,6 @@ def describe_target(target: dict) -> str:
             : "a crossingless diagram"}[kind]
 
 
-def statement_text(record) -> str:
-    """A found move as a movie statement that replays it.
-
-    >>> from movies.diagram.simplify import MoveRecord
-    >>> statement_text(MoveRecord("R2+", over=3, under=5, face=2))
-    'R2 add 3 over 5 in face 2'
-    >>> statement_text(MoveRecord("R1+", edge=4, hand="R", sign=-1))
-    'R1 add 4 right -'
-    """
-    kind = record.kind
-    if kind == "R1+":
-        return f"R1 add {record.edge} {'left' if record.hand == 'L' else 'right'} {'+' if record.sign > 0 else '-'}"
-    if kind == "R1-":
-        return f"R1 remove {record.crossing}" + (f" kink {record.kink}" if record.kink is not None else "")
-    if kind == "R2+":
-        return f"R2 add {record.over} over {record.under} in face {record.face}"
-    if kind == "R2-":
-        return f"R2 remove face {record.face}"
-    return f"R3 face {record.face}"
-
-
 def _budget(seconds: float):
     from movies.diagram.simplify import Budget
 
@@ -108,7 +87,7 @@ def simplify_frame(frame: Diagram, target: dict, budget: float) -> Simplified:
 
     result = engine.simplify(frame, target=goal, budget=_budget(budget))
     why = "" if result.reached else stop_reason(result.stopped, budget)
-    return Simplified(result.diagram, bool(result.reached), tuple(statement_text(m) for m in result.moves), why)
+    return Simplified(result.diagram, bool(result.reached), tuple(str(m) for m in result.moves), why)
 
 
 def certify(frame: Diagram, claimed: Diagram, budget: float) -> Certification:
@@ -124,5 +103,5 @@ def certify(frame: Diagram, claimed: Diagram, budget: float) -> Certification:
     certificate = certify_within(frame, claimed, meter)
     if certificate is None:
         return Certification(False, why=stop_reason(meter.stopped, budget))
-    return Certification(True, tuple(statement_text(m) for m in certificate.moves),
+    return Certification(True, tuple(str(m) for m in certificate.moves),
                          dict(certificate.names["components"]))

@@ -20,7 +20,7 @@ from html import escape
 from movies.checker.replay import CheckResult
 from movies.draw.svg import diagram_svg
 from movies.report.movie import as_json, finding_lines, step_note, surface_lines
-from movies.report.places import place_of
+from movies.draw.svg import Highlight
 from movies.wording import plural
 
 #: the page's colours (our own): ink, muted ink, rules, card, accents for the verdicts
@@ -80,7 +80,8 @@ def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
     for index, frame in enumerate(result.frames):
         number = index + 1  # the step that acts on this frame
         statement = statements[index] if index < len(statements) else None
-        highlight = place_of(statement, frame) if statement is not None else None
+        places = result.places[index] if index < len(result.places) else None
+        highlight = Highlight(places.edges, places.faces, places.crossings) if places is not None else None
         what = "the start" if index == 0 else f"after step {index}"
         caption = (f"frame {index} ({what}): {plural(frame.crossing_count(), 'crossing')}, "
                    f"{plural(frame.component_count(), 'component')}")

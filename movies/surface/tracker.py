@@ -24,35 +24,11 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Sequence
 
+from movies.diagram.steps import Transition
 from movies.unionfind import ParityUnionFind
 
 #: a node of the surface graph: (frame number, component name)
 Node = tuple[int, int]
-
-
-@dataclass(frozen=True)
-class Transition:
-    """What one step does to the components.
-
-    ``links``: (before, after, same orientation) for components that continue (a component
-    not named in ``links`` or ``ended`` continues unchanged); ``started``:
-    components that appear (births); ``ended``: components that disappear (deaths);
-    ``twisted``: components that a band twists (the surface is not orientable there);
-    ``births``, ``deaths``, ``saddles``: the Morse points the step adds; ``turns`` (+1 or −1)
-    and ``gate`` ((component, direction ±1) per strand) for a twist step, which takes the
-    surface through a blow-up.
-    """
-
-    kind: str
-    links: tuple[tuple[int, int, bool], ...] = ()
-    started: tuple[int, ...] = ()
-    ended: tuple[int, ...] = ()
-    twisted: tuple[int, ...] = ()
-    births: int = 0
-    deaths: int = 0
-    saddles: int = 0
-    turns: int = 0
-    gate: tuple[tuple[int, int], ...] = ()
 
 
 @dataclass(frozen=True)
@@ -68,15 +44,6 @@ class Blowup:
     turns: int
     algebraic: int
     strands: int
-
-
-def identity_transition(kind: str, components: Sequence[int]) -> Transition:
-    """Every component continues with its orientation (Reidemeister moves, isotopies).
-
-    >>> identity_transition("R2+", [1, 2]).links
-    ((1, 1, True), (2, 2, True))
-    """
-    return Transition(kind, links=tuple((k, k, True) for k in components))
 
 
 @dataclass(frozen=True)

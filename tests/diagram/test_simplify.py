@@ -298,7 +298,7 @@ def test_nested_circles_certify_to_circles_side_by_side():
 
 def test_records_translate_and_print():
     record = MoveRecord("R1+", edge=4, hand="R", sign=-1)
-    assert str(record) == "R1+ edge 4 hand R sign -1"
+    assert str(record) == "R1 add 4 right -"  # the movie-language line that writes it
     assert translate(record, {"edges": {4: 9}}) == MoveRecord("R1+", edge=9, hand="R", sign=-1)
     assert len(candidates(unknot(), ("R1+",))) == 4
     with pytest.raises(MoveError):

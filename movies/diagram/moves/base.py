@@ -16,7 +16,7 @@ from movies.diagram.model import Dart, Diagram, Side
 from movies.errors import DiagramError, InternalError, MoveError
 
 
-@dataclass(frozen=True)
+@dataclass(frozen=True, order=True)
 class NewNames:
     """Names the caller chooses for what a move creates, used in the move's documented order.
 

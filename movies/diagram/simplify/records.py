@@ -1,7 +1,8 @@
-"""Reidemeister moves as plain records: what was done, where, replayable by anyone.
+"""Reidemeister moves as records for the search: which apply, and which undoes which.
 
-A :class:`MoveRecord` holds a move's kind and exactly the arguments that the functions of
-:mod:`movies.diagram.moves` take. :func:`apply` replays one record, :func:`replay` a sequence;
+The records are the one vocabulary of :mod:`movies.diagram.steps` (a
+:class:`~movies.diagram.steps.MoveRecord` holds a move's kind and exactly the arguments of its
+function); :func:`apply` replays one record, :func:`replay` a sequence;
 a recorded sequence from a start diagram is a certificate that anyone can check with the
 ordinary move functions. :func:`candidates` lists the moves that apply to a diagram, and
 :func:`inverse` finds the move that undoes a recorded one.
@@ -10,112 +11,26 @@ ordinary move functions. :func:`candidates` lists the moves that apply to a diag
 >>> kink = MoveRecord("R1+", edge=1, hand="L", sign=+1)
 >>> d = apply(kink, unknot())
 >>> d.crossing_count(), [str(r) for r in candidates(d, ("R1-",))]
-(1, ['R1- crossing 1 kink 1', 'R1- crossing 1 kink 2'])
+(1, ['R1 remove 1 kink 1', 'R1 remove 1 kink 2'])
 """
 
 from __future__ import annotations
 
-from dataclasses import dataclass
 from typing import Iterable, Sequence
 
 from movies.diagram import moves
+from movies.diagram.steps import MoveRecord, apply
 from movies.diagram.isotopy import same_on_sphere
 from movies.diagram.model import Dart, Diagram, Side
 from movies.errors import InternalError, MoveError
 
 __all__ = ["KINDS", "CHANGE", "MoveRecord", "apply", "replay", "candidates", "inverse", "translate"]
 
-#: the move kinds a record can hold
+#: the moves the search makes: the Reidemeister moves
 KINDS = ("R1+", "R1-", "R2+", "R2-", "R3")
 
 #: how many crossings each kind adds
 CHANGE = {"R1+": 1, "R1-": -1, "R2+": 2, "R2-": -2, "R3": 0}
-
-_FIELDS = {
-    "R1+": ("edge", "hand", "sign"),
-    "R1-": ("crossing", "kink"),
-    "R2+": ("over", "under", "face"),
-    "R2-": ("face",),
-    "R3": ("face",),
-}
-
-
-@dataclass(frozen=True, order=True)
-class MoveRecord:
-    """One Reidemeister move and the exact arguments of its move function.
-
-    ``kind`` is one of :data:`KINDS`; the other fields are those the move function takes:
-    ``R1+`` -> ``r1_add(d, edge, hand, sign)``; ``R1-`` -> ``r1_remove(d, crossing, kink)``;
-    ``R2+`` -> ``r2_add(d, over, under, face)``; ``R2-`` -> ``r2_remove(d, face)``;
-    ``R3`` -> ``r3(d, face)``. Fields a kind does not use stay ``None``.
-
-    >>> MoveRecord("R2+", over=3, under=5, face=2)
-    MoveRecord('R2+', over=3, under=5, face=2)
-    >>> MoveRecord("R4", face=1)
-    Traceback (most recent call last):
-    ...
-    movies.errors.MoveError: a move record is one of R1+, R1-, R2+, R2-, R3, not 'R4'
-    """
-
-    kind: str
-    edge: int | None = None
-    hand: str | None = None
-    sign: int | None = None
-    crossing: int | None = None
-    kink: int | None = None
-    over: int | None = None
-    under: int | None = None
-    face: int | None = None
-
-    def __post_init__(self) -> None:
-        if self.kind not in _FIELDS:
-            raise MoveError(f"a move record is one of {', '.join(KINDS)}, not {self.kind!r}")
-        needed = _FIELDS[self.kind]
-        for name in ("edge", "hand", "sign", "crossing", "kink", "over", "under", "face"):
-            value = getattr(self, name)
-            if name in needed and value is None and not (self.kind == "R1-" and name == "kink"):
-                raise MoveError(f"a {self.kind} record needs {name}")
-            if name not in needed and value is not None:
-                raise MoveError(f"a {self.kind} record takes {', '.join(needed)}, not {name}")
-
-    def arguments(self) -> dict[str, object]:
-        """The keyword arguments of the move function, in its order.
-
-        >>> MoveRecord("R1-", crossing=4, kink=9).arguments()
-        {'crossing': 4, 'kink': 9}
-        """
-        return {name: getattr(self, name) for name in _FIELDS[self.kind]}
-
-    def __repr__(self) -> str:
-        args = ", ".join(f"{k}={v!r}" for k, v in self.arguments().items() if v is not None)
-        return f"MoveRecord({self.kind!r}, {args})"
-
-    def __str__(self) -> str:
-        args = " ".join(f"{k} {v if k != 'sign' else format(v, '+d')}" for k, v in self.arguments().items()
-                        if v is not None)
-        return f"{self.kind} {args}"
-
-
-def apply(record: MoveRecord, diagram: Diagram) -> Diagram:
-    """Replay one move with :mod:`movies.diagram.moves`; raises MoveError where it does not apply.
-
-    Parameters: ``record``, the move; ``diagram``, the frame it acts on. Returns the new frame.
-
-    >>> from movies.diagram.constructors import unknot
-    >>> apply(MoveRecord("R1+", edge=1, hand="R", sign=-1), unknot()).writhe()
-    -1
-    """
-    kind = record.kind
-    if kind == "R1+":
-        return moves.r1_add(diagram, record.edge, record.hand, record.sign)
-    if kind == "R1-":
-        return moves.r1_remove(diagram, record.crossing, record.kink)
-    if kind == "R2+":
-        return moves.r2_add(diagram, record.over, record.under, record.face)
-    if kind == "R2-":
-        return moves.r2_remove(diagram, record.face)
-    return moves.r3(diagram, record.face)
-
 
 def replay(records: Iterable[MoveRecord], diagram: Diagram) -> Diagram:
     """Replay a sequence of moves from ``diagram``; returns the last frame.
@@ -167,7 +82,7 @@ def candidates(diagram: Diagram, kinds: Sequence[str] = KINDS) -> list[MoveRecor
 
     >>> from movies.diagram.constructors import unlink
     >>> [str(r) for r in candidates(unlink(2), ("R2+",))]
-    ['R2+ over 1 under 2 face 2', 'R2+ over 2 under 1 face 2']
+    ['R2 add 1 over 2 in face 2', 'R2 add 2 over 1 in face 2']
     """
     found: list[MoveRecord] = []
     for kind in kinds:

@@ -1,0 +1,75 @@
+"""The one vocabulary of steps: every kind is read, performed, marked and written back the same.
+
+A kind of step that the movie language cannot write, that replay cannot perform, or whose
+outcome marks no place fails here.
+"""
+
+import pytest
+
+from movies.checker.replay import check_movie, record_of
+from movies.diagram.simplify.records import candidates
+from movies.diagram.steps import KINDS, MoveRecord, Outcome, perform
+from movies.errors import MoveError
+from movies.language.movie import parse_movie
+from movies.language.spec import parse_diagram
+from movies.diagram.moves import NewNames
+
+# (spec of the first frame, the lines before, the line of the step)
+SAMPLES = {
+    "R1+": ("unknot", [], "R1 add 1 left +"),
+    "R1-": ("unknot", ["R1 add 1 left +"], "R1 remove 1"),
+    "R2+": ("unlink(2)", [], "R2 add 1 over 2 in face 2 new crossings 7 8"),
+    "R2-": ("unlink(2)", ["R2 add 1 over 2 in face 2"], None),  # the bigon, as the search finds it
+    "R3": ("braid[1, 2, 1]", [], None),                        # a triangle, as the search finds it
+    "band": ("unlink(2)", [], "band 1 2 in face 2"),
+    "birth": ("unknot", [], "birth cw in face 1"),
+    "death": ("unlink(2)", [], "death 2"),
+    "twist": ("unlink(2)", [], "twist -1 across 1 2 from face 1"),
+}
+
+
+def _frame_and_line(kind):
+    spec, before, line = SAMPLES[kind]
+    result = check_movie("\n".join([f"start {spec}", *before]), bounds=False)
+    assert result.verified
+    frame = result.frames[-1]
+    if line is None:
+        line = str(candidates(frame, (kind,))[0])
+    return spec, before, frame, line
+
+
+def test_every_kind_has_a_sample():
+    assert set(SAMPLES) == set(KINDS)
+
+
+@pytest.mark.parametrize("kind", KINDS)
+def test_every_kind_is_read_performed_marked_and_written_back(kind):
+    spec, before, frame, line = _frame_and_line(kind)
+    statement = parse_movie("\n".join([f"start {spec}", *before, line])).steps[-1]
+    record = record_of(statement)
+    assert record.kind == kind
+    # written back: the record's text is the line, and reads as the same record
+    assert str(record) == line
+    assert record_of(parse_movie(f"start {spec}\n{str(record)}").steps[-1]) == record
+    # performed, with the places it acts on in the frame before it
+    outcome = perform(record, frame)
+    assert isinstance(outcome, Outcome) and outcome.diagram != frame
+    assert outcome.places.edges or outcome.places.faces or outcome.places.crossings
+    # replayed by the checker through the same outcome
+    checked = check_movie("\n".join([f"start {spec}", *before, line]), bounds=False)
+    assert checked.verdict == "verified" and checked.frames[-1] == outcome.diagram
+    assert checked.places[-1] == outcome.places and checked.transitions[-1] == outcome.transition
+
+
+def test_records_refuse_fields_of_other_kinds():
+    with pytest.raises(MoveError, match="needs edges"):
+        MoveRecord("twist", turns=1)
+    with pytest.raises(MoveError, match="takes"):
+        MoveRecord("death", component=1, face=2)
+    assert MoveRecord("band", first=1, second=2).face is None  # the face may be left to the move
+    assert str(MoveRecord("R3", face=4, names=NewNames(faces=(9,)))) == "R3 face 4 new faces 9"
+
+
+def test_a_move_that_does_not_apply_says_why():
+    with pytest.raises(MoveError):
+        perform(MoveRecord("death", component=1), parse_diagram("3_1"))
