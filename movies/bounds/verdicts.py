@@ -4,9 +4,11 @@ For each end: s over Q and F₂ (and of the mirror image); each inequality that 
 surface, with both sides; for knot ends, lower bounds for the 4-ball genus and, when one equals
 the genus of the surface in the movie, the statement that the surface is as small as possible.
 
->>> from movies.language.movie import parse_movie
->>> from movies.checker.replay import check_movie
->>> report = surface_bounds(check_movie(parse_movie("start 3_1\\nband 1 4 in face 1\\nsimplify\\ndeath 1")))
+>>> from movies.diagram.constructors import empty
+>>> from movies.language.spec import parse_diagram
+>>> from movies.surface.tracker import Transition, surface_of
+>>> twisted = surface_of([1], [Transition("band", links=((1, 1, True),), twisted=(1,), saddles=1)])
+>>> report = surface_bounds(parse_diagram("3_1"), parse_diagram("3_1"), twisted)
 >>> report.notes[0]
 'the surface is not oriented compatibly with the start, so the s-inequalities do not apply'
 """
@@ -19,7 +21,7 @@ from movies.bounds.ambient import Ambient, ambient, applicable_bounds
 from movies.bounds.inequalities import Bound, GenusBound, best_genus_bound, four_genus_bounds
 from movies.diagram.constructors import mirror
 from movies.diagram.model import Diagram
-from movies.errors import InternalInconsistency  # noqa: F401  (raised by the checker; kept importable here)
+from movies.surface.tracker import Surface
 from movies.homology.khovanov import bar_natan_complex, s_from_complex
 from movies.homology.links import link_s_values
 from movies.homology.rings import parse_field
@@ -80,27 +82,30 @@ def knot_genus_bounds(diagram: Diagram) -> list[GenusBound]:
     return four_genus_bounds(s, signature(diagram), lt)
 
 
-def surface_ambient(result) -> Ambient:
-    """The 4-manifold the surface of a checked movie (``CheckResult``) lives in, named for its boundary.
+def surface_ambient(start: Diagram, end: Diagram, surface: Surface | None) -> Ambient:
+    """The 4-manifold a movie's surface lives in, named for its boundary (:mod:`movies.bounds.ambient`).
 
-    >>> from movies.language.movie import parse_movie
-    >>> from movies.checker.replay import check_movie
-    >>> surface_ambient(check_movie(parse_movie("start unknot\\ndeath 1"))).sentence()
+    Parameters: the first and the last frame, and the surface (None when the movie stopped at
+    an invalid step: then no blow-ups are counted).
+
+    >>> from movies.diagram.constructors import empty, unknot
+    >>> surface_ambient(unknot(), empty(), None).sentence()
     'in B^4, bounded by the start'
     """
-    surface = result.surface
-    return ambient(result.movie.start.is_empty(), result.frames[-1].is_empty(),
+    return ambient(start.is_empty(), end.is_empty(),
                    surface.blowups if surface is not None else (), surface is None or surface.orientable)
 
 
-def surface_bounds(result) -> BoundsReport:
-    """The s-inequalities and genus bounds for the surface of a checked movie (``CheckResult``)."""
+def surface_bounds(start: Diagram, end: Diagram, surface: Surface | None) -> BoundsReport:
+    """The s-inequalities and genus bounds for the surface of a movie from ``start`` to ``end``.
+
+    Parameters: the first and the last frame; the surface (None for a movie that stopped at an
+    invalid step). Returns a :class:`BoundsReport`.
+    """
     report = BoundsReport()
-    surface = result.surface
     if surface is None:
         report.notes.append("no surface: the movie stops at an invalid step")
         return report
-    start, end = result.movie.start, result.frames[-1]
     for label, frame in (("start", start), ("end", end)):
         report.s[label] = s_values(frame)
         if frame.component_count() == 1:
@@ -109,7 +114,7 @@ def surface_bounds(result) -> BoundsReport:
         report.notes.append("the surface is not oriented compatibly with the start, so the s-inequalities do not apply")
         return report
     mirror_s = {label: mirror_s_values(frame, report.s[label]) for label, frame in (("start", start), ("end", end))}
-    place = surface_ambient(result)
+    place = surface_ambient(start, end, surface)
     report.bounds, notes = applicable_bounds(place, report.s, mirror_s, surface.euler_characteristic,
                                              surface.every_component_meets_start, surface.every_component_meets_end)
     report.notes.extend(notes)

@@ -23,8 +23,10 @@ from movies.checker import search
 from movies.diagram.moves import NewNames
 from movies.diagram.steps import MoveRecord, Places, perform, places_named
 from movies.diagram.constructors import unlink
+from movies.bounds.ambient import Ambient
+from movies.bounds.verdicts import BoundsReport, surface_ambient, surface_bounds
 from movies.diagram.model import Diagram
-from movies.errors import InputError, InternalError, LocatedLimitError, MoveError, MoviesError
+from movies.errors import InputError, InternalError, InternalInconsistency, LocatedLimitError, MoveError, MoviesError
 from movies.invariants.alexander import alexander_polynomial, determinant
 from movies.checker.distinguish import first_difference
 from movies.invariants.jones import jones_polynomial
@@ -78,6 +80,30 @@ class StepRecord:
     found: tuple[str, ...] = ()  # moves the checker found (simplify, isotopy claims), as text
 
 
+@dataclass(frozen=True)
+class Checkpoint:
+    """One ``expect`` line as judged: ``outcome`` is ``holds``, ``false`` or ``unproved``."""
+
+    line: int
+    claim: str
+    outcome: str
+    detail: str
+
+
+@dataclass(frozen=True)
+class Claim:
+    """One fact of a ``surface`` line as judged: ``holds`` is True, False, or None (not shown)."""
+
+    fact: str
+    value: int | None
+    holds: bool | None
+    detail: str
+
+    @property
+    def text(self) -> str:
+        return self.fact if self.value is None else f"{self.fact} {self.value}"
+
+
 @dataclass
 class CheckResult:
     """Everything the checker learned about one movie."""
@@ -86,12 +112,16 @@ class CheckResult:
     frames: list[Diagram] = field(default_factory=list)
     steps: list[StepRecord] = field(default_factory=list)
     findings: list[Finding] = field(default_factory=list)
-    checkpoints: list[tuple[Statement, str, str]] = field(default_factory=list)  # statement, outcome, detail
-    claims: list[tuple[str, int | None, bool, str]] = field(default_factory=list)  # fact, value, holds, detail
+    checkpoints: list[Checkpoint] = field(default_factory=list)
+    claims: list[Claim] = field(default_factory=list)
     surface: Surface | None = None
     transitions: list[Transition] = field(default_factory=list)
     places: list[Places] = field(default_factory=list)  # where each step acts, in the frame before it
-    bounds: object = None  # a movies.bounds.verdicts.BoundsReport once judged
+    bounds: BoundsReport | None = None  # once judged
+
+    def ambient(self) -> Ambient:
+        """The 4-manifold the surface lives in, named for its boundary link."""
+        return surface_ambient(self.movie.start, self.frames[-1], self.surface)
 
     @property
     def verdict(self) -> str:
@@ -123,6 +153,10 @@ def _names_in(diagram: Diagram) -> str:
         f"edges {short(diagram.edges())}; crossings {short(diagram.crossings)}; "
         f"faces {short(diagram.faces)}; components {short(diagram.components)}"
     )
+
+
+def _checkpoint(statement: Statement, outcome: str, detail: str) -> Checkpoint:
+    return Checkpoint(statement.line, statement.source.split("%")[0].strip(), outcome, detail)
 
 
 def record_of(statement: Statement) -> MoveRecord:
@@ -184,9 +218,7 @@ class _Replay:
         return result
 
     def judge_bounds(self) -> None:
-        from movies.bounds.verdicts import InternalInconsistency, surface_bounds
-
-        report = surface_bounds(self.result)
+        report = surface_bounds(self.movie.start, self.result.frames[-1], self.result.surface)
         self.result.bounds = report
         violated = report.violated
         if not violated:
@@ -304,19 +336,19 @@ class _Replay:
             target = unlink(frame.component_count()) if what == "unlink" else a["diagram"]
             label = "an unlink" if what == "unlink" else f"isotopic to {a['spec']}"
             if what == "unlink" and frame.is_crossingless():
-                self.result.checkpoints.append((statement, "holds", "the frame is crossingless"))
+                self.result.checkpoints.append(_checkpoint(statement, "holds", "the frame is crossingless"))
                 return
             outcome = search.certify(frame, target, self.budget)
             if outcome.certified:
-                self.result.checkpoints.append((statement, "holds", "certified by Reidemeister moves"))
+                self.result.checkpoints.append(_checkpoint(statement, "holds", "certified by Reidemeister moves"))
                 return
             difference = first_difference(frame, target)
             if difference is not None:
-                self.result.checkpoints.append((statement, "false", f"they differ in {difference}"))
+                self.result.checkpoints.append(_checkpoint(statement, "false", f"they differ in {difference}"))
                 self.find("false", statement, f"the frame {here} is not {label}", f"they differ in {difference}")
             else:
                 why = f"the search found no Reidemeister moves between them: {outcome.why}; every invariant agrees"
-                self.result.checkpoints.append((statement, "unproved", why))
+                self.result.checkpoints.append(_checkpoint(statement, "unproved", why))
                 self.find("unproved", statement, f"the frame {here} being {label} is unproved", why)
         else:
             compute = {"signature": signature, "writhe": lambda d: d.writhe(), "determinant": determinant,
@@ -331,7 +363,7 @@ class _Replay:
             self._judge(statement, actual == a["value"], f"{what} {a['value']}", f"the frame {here} has {what} {actual}")
 
     def _judge(self, statement: Statement, holds: bool, claim: str, detail: str) -> None:
-        self.result.checkpoints.append((statement, "holds" if holds else "false", detail))
+        self.result.checkpoints.append(_checkpoint(statement, "holds" if holds else "false", detail))
         if not holds:
             self.find("false", statement, f"expected {claim}", detail)
 
@@ -360,7 +392,7 @@ class _Replay:
             holds, detail = s.euler_characteristic == value, f"Euler characteristic {s.euler_characteristic}"
         else:  # pragma: no cover
             raise InternalError(f"a surface fact the checker does not know: {fact}")
-        self.result.claims.append((fact, value, holds, detail))
+        self.result.claims.append(Claim(fact, value, holds, detail))
         said = fact if value is None else f"{fact} {value}"
         if holds is None:
             self.find("unproved", statement, f"the surface is claimed to be {said}: not shown by this movie", detail,

@@ -11,7 +11,6 @@ same facts.
 
 from __future__ import annotations
 
-from movies.bounds.verdicts import surface_ambient
 from movies.checker.replay import REFUTED, VERDICT_MEANING, CheckResult, ribbon_shown
 from movies.wording import plural
 
@@ -42,8 +41,8 @@ def as_json(result: CheckResult) -> dict:
             for f in result.findings
         ],
         "checkpoints": [
-            {"line": statement.line, "claim": statement.source.split("%")[0].strip(), "outcome": outcome, "detail": detail}
-            for statement, outcome, detail in result.checkpoints
+            {"line": c.line, "claim": c.claim, "outcome": c.outcome, "detail": c.detail}
+            for c in result.checkpoints
         ],
         "surface": None,
     }
@@ -60,7 +59,7 @@ def as_json(result: CheckResult) -> dict:
     s = result.surface
     if s is not None:
         data["surface"] = {
-            **surface_ambient(result).as_json(),
+            **result.ambient().as_json(),
             "euler_characteristic": s.euler_characteristic,
             "births": s.births, "saddles": s.saddles, "deaths": s.deaths,
             "orientable": s.orientable,
@@ -78,8 +77,7 @@ def as_json(result: CheckResult) -> dict:
                 }
                 for c in s.components
             ],
-            "claims": [{"claim": fact if value is None else f"{fact} {value}", "holds": holds, "detail": detail}
-                       for fact, value, holds, detail in result.claims],
+            "claims": [{"claim": c.text, "holds": c.holds, "detail": c.detail} for c in result.claims],
         }
     return data
 

@@ -13,7 +13,7 @@ from dataclasses import replace
 import pytest
 
 from movies.bounds.ambient import ambient, applicable_bounds, twist_for
-from movies.bounds.verdicts import mirror_s_values, s_values, surface_ambient
+from movies.bounds.verdicts import mirror_s_values, s_values
 from movies.checker.replay import check_movie
 from movies.diagram import moves
 from movies.diagram.tables import table_names
@@ -112,15 +112,15 @@ def test_the_random_family_is_verified_and_passes_through_blowups(movies_with_tw
         result = check_movie(parse_movie(_text(name, steps)))
         assert result.verified, _text(name, steps)
         assert result.surface.blowups and result.surface.oriented_by_start
-        assert surface_ambient(result).reading == "bounded by the start"
-        kinds[surface_ambient(result).definite] += 1
+        assert result.ambient().reading == "bounded by the start"
+        kinds[result.ambient().definite] += 1
     assert kinds["positive definite"] and kinds["negative definite"] and kinds["indefinite"], kinds
 
 
 def test_a_movie_read_backwards_names_the_same_four_manifold(movies_with_twists):
     for name, steps in movies_with_twists:
         result = check_movie(parse_movie(_text(name, steps)))
-        forward = surface_ambient(result)
+        forward = result.ambient()
         back = _reversed(result.transitions)
         surface = surface_of([], back)
         place = ambient(True, False, surface.blowups, surface.orientable)
@@ -148,13 +148,13 @@ def test_mirroring_every_frame_swaps_cp2_and_cp2_bar(movies_with_twists):
         result = check_movie(parse_movie(_text(name, steps)))
         mirrored = check_movie(parse_movie(_text(name, steps, mirrored=True)))
         assert mirrored.verdict == result.verdict == "verified"
-        place, image = surface_ambient(result), surface_ambient(mirrored)
+        place, image = result.ambient(), mirrored.ambient()
         assert image.name == _swapped(place.name) and image.square == -place.square
         assert _bound_numbers(mirrored.bounds.bounds) == _bound_numbers(result.bounds.bounds)
         # mirrored twice: the same 4-manifold
         twice = _text(name, [(k, -sign, rest) for k, sign, rest in steps], mirrored=True).replace(
             f"start mirror({name})", f"start mirror(mirror({name}))")
-        assert surface_ambient(check_movie(parse_movie(twice))).name == place.name
+        assert check_movie(parse_movie(twice)).ambient().name == place.name
 
 
 def test_naming_for_each_shape_of_movie():

@@ -6,7 +6,8 @@ import pytest
 
 from movies.bounds import verdicts
 from movies.bounds.inequalities import best_genus_bound
-from movies.bounds.verdicts import InternalInconsistency, knot_genus_bounds, surface_bounds
+from movies.bounds.verdicts import knot_genus_bounds, surface_bounds
+from movies.errors import InternalInconsistency
 from movies.checker.replay import check_movie
 from movies.cli.main import main
 from movies.diagram.constructors import torus_link
@@ -77,7 +78,7 @@ def test_a_violation_in_a_verified_movie_is_an_internal_error(monkeypatch, capsy
 def test_link_ends_with_a_linking_number_zero_sublink_are_judged():
     result = check_movie(parse_movie("start L5a1{0}\nband 1 5 in face 2"))
     assert result.verdict == "verified"
-    report = surface_bounds(result)
+    report = surface_bounds(result.movie.start, result.frames[-1], result.surface)
     # pinned: this program's value for the Whitehead link (checked against theorems in tests/homology/test_links.py)
     assert report.s["start"] == {"Q": -1, "F2": -1}
     assert report.bounds and all(b.holds for b in report.bounds)

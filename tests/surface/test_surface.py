@@ -86,7 +86,8 @@ def test_ribbon_needs_no_births():
 ])
 def test_a_ribbon_claim_is_shown_or_left_unproved_never_refuted(text, ribbon):
     result = check_movie(parse_movie(text))
-    ((fact, _, holds, detail),) = result.claims
+    (claim,) = result.claims
+    fact, holds, detail = claim.fact, claim.holds, claim.detail
     assert fact == "ribbon" and holds is ribbon
     # common practice, no source: a movie with local maxima may still draw a surface isotopic to a ribbon one
     assert result.verdict == ("verified" if ribbon else "conditional"), detail
