@@ -61,7 +61,20 @@ def s_values(diagram: Diagram) -> dict[str, int]:
 
 
 def mirror_s_values(diagram: Diagram, s: dict[str, int]) -> dict[str, int]:
-    """s of the mirror image: −s for knots (Rasmussen 2010), computed afresh for links."""
+    """s of the mirror image: −s for knots (Rasmussen 2010), computed afresh for links.
+
+    Parameters: the diagram and its s over each field (from :func:`s_values`). Returns s of the
+    mirror image over the same fields.
+
+    >>> from movies.diagram.constructors import torus_link
+    >>> hopf = torus_link(2, 2)
+    >>> mirror_s_values(hopf, s_values(hopf))  # the negative Hopf link
+    {'Q': -1, 'F2': -1}
+
+    References
+    ----------
+    J. Rasmussen, "Khovanov homology and the slice genus" (2010): s(m(K)) = −s(K) for knots.
+    """
     if diagram.is_empty():
         return dict(s)
     if diagram.component_count() == 1:

@@ -76,7 +76,17 @@ def _budget(seconds: float):
 
 
 def simplify_frame(frame: Diagram, target: dict, budget: float) -> Simplified:
-    """Run the search toward a simplify step's target."""
+    """Run the search toward a simplify step's target (a dict as the movie reader builds it).
+
+    Parameters: the frame; ``target`` (``{"target": "fewest" | "crossingless" | "crossings" |
+    "diagram", ...}``); the budget in seconds. Returns a :class:`Simplified`: the frame it
+    reached, whether that is the target, the moves as movie lines, and why it stopped short.
+
+    >>> from movies.diagram.constructors import from_braid
+    >>> found = simplify_frame(from_braid([1, -1]), {"target": "crossingless"}, 1)
+    >>> found.reached, found.moves
+    (True, ('R2 remove face 1',))
+    """
     kind = target["target"]
     goal = {"fewest": "fewest", "crossingless": "crossingless"}.get(kind)
     if kind == "crossings":
@@ -91,7 +101,16 @@ def simplify_frame(frame: Diagram, target: dict, budget: float) -> Simplified:
 
 
 def certify(frame: Diagram, claimed: Diagram, budget: float) -> Certification:
-    """Try to prove that ``frame`` is isotopic to ``claimed``; maps components when it does."""
+    """Try to prove that ``frame`` is isotopic to ``claimed``; maps components when it does.
+
+    Parameters: the two diagrams and the budget in seconds. Returns a :class:`Certification`:
+    the moves (movie lines) from ``frame`` to ``claimed`` and the components matched, or, when
+    none was found, why the search stopped (which says nothing about whether they are isotopic).
+
+    >>> from movies.diagram.constructors import from_braid, unlink
+    >>> certify(from_braid([1, -1]), unlink(2), 1).certified
+    True
+    """
     for candidate in (claimed, reflect_and_switch(claimed)):
         match = isomorphism(frame, candidate)
         if match is not None:

@@ -20,7 +20,15 @@ __all__ = ["checked_pd", "connected_pieces", "piece_order", "scan_order"]
 
 
 def checked_pd(pd) -> list:
-    """The PD code as a list of 4-tuples; PDCodeError unless every label occurs exactly twice."""
+    """The PD code as a list of 4-tuples; PDCodeError unless every label occurs exactly twice.
+
+    >>> checked_pd([[1, 1, 2, 2]])
+    [(1, 1, 2, 2)]
+    >>> checked_pd([[1, 2, 3, 4]])
+    Traceback (most recent call last):
+    ...
+    movies.errors.PDCodeError: edge label 1 occurs 1 time(s) in the PD code; every edge label must occur exactly twice
+    """
     if isinstance(pd, (str, bytes)):
         raise PDCodeError("a PD code is a list of crossings, not a string")
     crossings = []
@@ -53,7 +61,11 @@ def checked_pd(pd) -> list:
 
 
 def connected_pieces(crossings: list) -> list:
-    """The connected pieces (lists of crossing indices, each sorted, ordered by first index)."""
+    """The connected pieces (lists of crossing indices, each sorted, ordered by first index).
+
+    >>> connected_pieces([(1, 2, 2, 1), (3, 4, 4, 3), (1, 5, 5, 1)])
+    [[0, 2], [1]]
+    """
     n = len(crossings)
     first: dict = {}
     pairs = [(i, first.setdefault(label, i)) for i, c in enumerate(crossings) for label in c]

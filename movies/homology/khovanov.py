@@ -199,7 +199,18 @@ def s_from_complex(final: FinalComplex, p: int) -> int:
     """s of a knot from its final Bar-Natan complex, over Q (p = 0) or F_p.
 
     The complex may be the one computed over Z: tensoring it with the field gives the
-    complex over that field.
+    complex over that field. Raises an internal error when the free part is not two copies of
+    F[H] two apart in degree 0 (Rasmussen's theorem says it is, for every knot).
+
+    >>> from movies.diagram.constructors import from_braid
+    >>> final = bar_natan_complex(from_braid([1, 1, 1]), "Z")
+    >>> s_from_complex(final, 0), s_from_complex(final, 2)
+    (2, 2)
+
+    References
+    ----------
+    J. Rasmussen, "Khovanov homology and the slice genus" (2010); D. Bar-Natan, "Khovanov's
+    homology for tangles and cobordisms" (2005), for the theory over F[H].
     """
     free = bar_natan_module(final, p, degrees={0})["free"]  # s needs degree 0 only
     degrees = sorted(q for (h, q), r in free.items() for _ in range(r))

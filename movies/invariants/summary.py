@@ -36,7 +36,13 @@ def exponent_json(exponent: Fraction) -> int | str:
 
 
 def polynomial_terms(polynomial) -> list[list]:
-    """[[exponent, coefficient], ...] in increasing exponent order."""
+    """[[exponent, coefficient], ...] in increasing exponent order, exponents exact.
+
+    >>> from movies.algebra.laurent import LaurentPolynomial
+    >>> from fractions import Fraction
+    >>> polynomial_terms(LaurentPolynomial({Fraction(1, 2): -1, Fraction(5, 2): -1}))
+    [['1/2', -1], ['5/2', -1]]
+    """
     return [[exponent_json(e), c] for e, c in polynomial.terms()]
 
 

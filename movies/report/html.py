@@ -114,6 +114,10 @@ def report_body(result: CheckResult, source: str = "", size: int = 340) -> str:
 
     Parameters: the checked movie; the file name to show; the width of each drawing.
     Returns the HTML fragment.
+
+    >>> from movies.checker.replay import check_movie
+    >>> report_body(check_movie("start unknot\\ndeath 1")).startswith('<div class="mv-report">')
+    True
     """
     data = as_json(result)
     title = data["title"] or "(untitled)"

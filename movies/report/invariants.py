@@ -59,7 +59,11 @@ def homology_polynomial(triples: list[list[int]], torsion: list[list[int]] = ())
 
 
 def homology_rows(facts: dict) -> list[tuple[str, str]]:
-    """Rows of the invariants report for the homology in ``facts`` (if any was computed)."""
+    """Rows of the invariants report for the homology in ``facts`` (if any was computed).
+
+    >>> homology_rows({"khovanov": {"Q": [[0, 1, 1], [0, -1, 1]]}, "s": {"Q": 0}})
+    [('Khovanov (Q)', 'q + q^-1'), ('s', '0 over Q')]
+    """
     rows: list[tuple[str, str]] = []
     for field, triples in facts.get("khovanov", {}).items():
         rows.append((f"Khovanov ({field})", homology_polynomial(triples)))
@@ -81,7 +85,7 @@ def homology_rows(facts: dict) -> list[tuple[str, str]]:
 
 
 def invariants_text(label: str, facts: dict) -> str:
-    """The readable report of ``movies invariants``: one row per invariant."""
+    """The readable report of ``movies invariants``: one row per invariant (see the module's example)."""
     rows = [
         ("components", str(facts["components"])),
         (

@@ -20,7 +20,15 @@ def _frame(diagram) -> dict:
 
 
 def as_json(result: CheckResult) -> dict:
-    """Everything the report says, as plain data."""
+    """Everything the report says about a checked movie, as plain JSON-ready data.
+
+    The keys are documented in README.md (``movies check --json``); no value is floating point.
+
+    >>> from movies.checker.replay import check_movie
+    >>> data = as_json(check_movie("start unlink(2)\\nband 1 2\\ndeath 1"))
+    >>> data["verdict"], data["surface"]["lives_in"], data["surface"]["euler_characteristic"]
+    ('verified', 'B^4', 0)
+    """
     data: dict = {
         "title": result.movie.title,
         "verified": result.verified,
@@ -94,7 +102,13 @@ def step_note(step: dict) -> str:
 
 
 def as_text(data: dict, source: str) -> str:
-    """The readable report of ``movies check``, from :func:`as_json` data."""
+    """The readable report of ``movies check``, from :func:`as_json` data.
+
+    >>> from movies.checker.replay import check_movie
+    >>> text = as_text(as_json(check_movie("start unknot\\ndeath 1")), "demo")
+    >>> text.splitlines()[0], text.splitlines()[-1]
+    ('movie  (untitled)   [demo]', 'VERDICT  verified: every step checked and every claim proved')
+    """
     lines = [f"movie  {data['title'] or '(untitled)'}   [{source}]", ""]
     table = [("step", "line", "move", "crossings", "components", "")]
     table.append(("0", "", "start", str(data["start"]["crossings"]), str(data["start"]["components"]), ""))
@@ -191,7 +205,12 @@ def surface_lines(data: dict) -> list[str]:
 
 
 def finding_lines(data: dict) -> list[str]:
-    """The reasons behind the verdict, one finding (and its evidence) after another."""
+    """The reasons behind the verdict, one finding (and its evidence) after another.
+
+    >>> finding_lines({"findings": [{"kind": "false", "line": 3, "column": 1, "message": "expected crossings 2",
+    ...                              "evidence": "the frame after step 1 has 0 crossings"}]})
+    ['  [false] line 3, column 1: expected crossings 2', '      the frame after step 1 has 0 crossings']
+    """
     lines = []
     for finding in data["findings"]:
         lines.append(f"  [{finding['kind']}] line {finding['line']}, column {finding['column']}: {finding['message']}")

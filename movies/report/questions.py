@@ -11,7 +11,14 @@ from __future__ import annotations
 
 
 def cobordism_lines(label: str, answer) -> list[str]:
-    """The readable answer of ``movies bounds A --to B``: one block per number of components."""
+    """The readable answer of ``movies bounds A --to B``: one block per number of components.
+
+    >>> from movies.bounds.questions import cobordism_question
+    >>> from movies.language.spec import parse_diagram
+    >>> answer = cobordism_question(parse_diagram("3_1"), parse_diagram("unknot"), genus=1)
+    >>> cobordism_lines("unknot", answer)[2]
+    '  to unknot, connected, total genus 1 (Euler characteristic -2)'
+    """
     lines = [f"  s: first {_fields(answer.s['first'])}; second {_fields(answer.s['second'])}",
              f"  s of the mirrors: first {_fields(answer.mirror_s['first'])}; "
              f"second {_fields(answer.mirror_s['second'])}"]
