@@ -120,13 +120,13 @@ def nesting_problem(text: str, comment: str | None = "%", strings: bool = False)
     return None
 
 
-def depth_message(depth: int, what: str = "brackets") -> str:
+def depth_message(depth: int, what: str = "brackets", how: str = "") -> str:
     """The message for nesting past the depth limit.
 
     >>> depth_message(101)
     'brackets nest 101 deep here; the limit is 100 (raise it with --limit depth=N)'
     """
-    return limits.exceeds("depth", f"{what} nest {depth} deep here")
+    return limits.exceeds("depth", f"{what} nest {depth} deep here{how}")
 
 
 def check_nesting(text: str) -> None:

@@ -148,6 +148,8 @@ def parse_diagram(text: str) -> Diagram:
     return _Builder(text).build(root)
 
 
+#: what counts as one level of nesting, beside brackets
+_LEVELS = " (each '#', '+', mirror and reverse is one level)"
 #: the parts of the tree that hold diagrams, by the kind of node
 _PARTS = {"mirror": (0,), "reverse": (0,), "union": (0, 2), "connected_sum": (0, 2)}
 
@@ -173,7 +175,7 @@ def _check_tree(text: str, root) -> None:
         if node.data in _PARTS:
             depth += 1
             if depth > deepest:
-                raise LocatedLimitError(depth_message(depth, "diagrams ('#', '+', mirror, reverse)"),
+                raise LocatedLimitError(depth_message(depth, "diagrams", _LEVELS),
                                         text, node.meta.line, node.meta.column)
         stack.extend((child, depth) for child in node.children)
 
