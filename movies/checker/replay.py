@@ -297,7 +297,7 @@ class _Replay:
         for name, value, what in (("crossings", crossings, "crossings"), ("components", components, "components")):
             if value > limits.current()[name]:
                 raise LocatedLimitError(limits.exceeds(name, f"step {self.number} would make a frame of {value} {what}"),
-                                        self.movie.text, statement.line, statement.column)
+                                        self.movie.text, statement.line, statement.column, name)
 
     def simplify(self, statement: Statement):
         target = statement.args

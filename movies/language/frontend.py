@@ -72,7 +72,7 @@ def check_digits(digits: str, text: str, line: int, column: int, what: str = "")
     """
     message = limits.digits_error(digits, what)
     if message:
-        raise LocatedLimitError(message, text, line, column)
+        raise LocatedLimitError(message, text, line, column, "digits")
 
 
 def read_int(token: Token, text: str) -> int:
@@ -139,4 +139,4 @@ def check_nesting(text: str) -> None:
     """
     offset = nesting_problem(text)
     if offset is not None:
-        raise LocatedLimitError(depth_message(limits.current()["depth"] + 1), text, *position(text, offset))
+        raise LocatedLimitError(depth_message(limits.current()["depth"] + 1), text, *position(text, offset), "depth")

@@ -176,7 +176,7 @@ def _check_tree(text: str, root) -> None:
             depth += 1
             if depth > deepest:
                 raise LocatedLimitError(depth_message(depth, "diagrams", _LEVELS),
-                                        text, node.meta.line, node.meta.column)
+                                        text, node.meta.line, node.meta.column, "depth")
         stack.extend((child, depth) for child in node.children)
 
 
@@ -287,7 +287,7 @@ def _unknown_word(word: str) -> str:
     return f"'{word}' is not a word of the notation{hint}"
 
 
-def _glued_name(text: str, offset: int) -> SpecTableError | None:
+def _glued_name(text: str, offset: int) -> LocatedError | None:
     """A run of letters and digits that the lexer split in two (``3_1x``), read as a table name."""
     if not (0 < offset < len(text) and _NAME_CHAR.match(text[offset - 1]) and _NAME_CHAR.match(text[offset])):
         return None
@@ -298,9 +298,8 @@ def _glued_name(text: str, offset: int) -> SpecTableError | None:
         end += 1
     try:
         canonical_name(text[start:end])
-    except TableError as err:
-        line, column = _position(text, start)
-        return SpecTableError(str(err), text, line, column)
+    except (TableError, LimitError) as err:
+        return located(err, text, *_position(text, start))
     return None  # pragma: no cover - a whole table name is one token
 
 
