@@ -40,6 +40,7 @@ from __future__ import annotations
 
 import difflib
 import functools
+import math
 import re
 
 from lark import Lark, Token, Tree
@@ -49,7 +50,7 @@ from movies import limits
 from movies.diagram import constructors
 from movies.diagram.model import Diagram
 from movies.diagram.pd import from_pd
-from movies.diagram.tables import canonical_name
+from movies.diagram.tables import canonical_name, lookup
 from movies.errors import (
     BraidError,
     GeneratorError,
@@ -145,6 +146,7 @@ def parse_diagram(text: str) -> Diagram:
         raise _syntax_error(text, err) from None
     root = tree.children[0]
     _check_tree(text, root)
+    _check_sizes(text, root)
     return _Builder(text).build(root)
 
 
@@ -178,6 +180,60 @@ def _check_tree(text: str, root) -> None:
                 raise LocatedLimitError(depth_message(depth, "diagrams", _LEVELS),
                                         text, node.meta.line, node.meta.column, "depth")
         stack.extend((child, depth) for child in node.children)
+
+
+def _post_order(root):
+    """The diagram nodes of the tree, each after the diagrams it is made of (no recursion)."""
+    order, stack = [], [root]
+    while stack:
+        node = stack.pop()
+        order.append(node)
+        stack.extend(node.children[i] for i in _PARTS.get(node.data, ()))
+    return reversed(order)
+
+
+def _leaf_size(node) -> tuple[int, int]:
+    """Crossings and components of a diagram that is not made of others, read off the text
+    without building it (0 where that is not cheap: the constructors check those themselves)."""
+    kind, children = node.data, node.children
+    try:
+        if kind == "table":
+            entry = lookup(str(children[0]))
+            return len(entry.pd), entry.components
+        if kind == "unknot":
+            return 0, 1
+        if kind == "unlink":
+            return 0, max(0, int(children[0]))
+        if kind == "torus":
+            p, q = int(children[0]), int(children[1])
+            p, q = (-p, -q) if p < 0 else (p, q)
+            return ((0, abs(q)) if p == 0 else ((p - 1) * abs(q), math.gcd(p, q) if q else p))
+        if kind == "braid":
+            return len(children[1].children), 0
+        if kind == "pd":
+            return len(children[0].children), 0
+    except (MoviesError, ValueError):  # the builder reports what is wrong with it, where it is
+        pass
+    return 0, 0
+
+
+def _check_sizes(text: str, root) -> None:
+    """Refuse a union or connected sum past the crossing or component limit before any of its
+    parts is built: their sizes add up."""
+    sizes: dict[int, tuple[int, int]] = {}
+    for node in _post_order(root):
+        parts = [sizes.pop(id(node.children[i])) for i in _PARTS.get(node.data, ())]
+        if node.data in ("union", "connected_sum"):
+            (c1, k1), (c2, k2) = parts
+            size = (c1 + c2, k1 + k2 - (node.data == "connected_sum" and k1 > 0 and k2 > 0))
+            what = "disjoint union" if node.data == "union" else "connected sum"
+            for name, value in zip(("crossings", "components"), size):
+                if value > limits.current()[name]:
+                    raise LocatedLimitError(limits.exceeds(name, f"the {what} would have {value} {name}"),
+                                            text, node.meta.line, node.meta.column, name)
+        else:
+            size = parts[0] if parts else _leaf_size(node)
+        sizes[id(node)] = size
 
 
 # ---------------------------------------------------------------------- syntax errors
