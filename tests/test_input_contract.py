@@ -294,6 +294,6 @@ def _interrupted(argv: list[str], after: float) -> tuple[int, str]:
     ["invariants", "torus(9, 10)"],
 ])
 def test_ctrl_c_stops_a_long_computation_with_exit_130(tmp_path, argv):
-    code, err = _interrupted([arg.replace("{tmp}", str(tmp_path)) for arg in argv], after=1.5)
+    code, err = _interrupted([arg.replace("{tmp}", str(tmp_path)) for arg in argv], after=2.5)
     assert code == 130
     assert err == "movies: interrupted\n"
