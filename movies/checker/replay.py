@@ -386,7 +386,8 @@ class _Replay:
 
     def claim(self, statement: Statement, fact: str, value: int | None) -> None:
         s = self.result.surface
-        assert s is not None
+        if s is None:  # pragma: no cover - claims are judged only after a complete replay
+            raise InternalError("a surface claim was judged before the surface was known")
         comps = s.components
         if fact == "disk":
             holds = len(comps) == 1 and comps[0].orientable and comps[0].euler_characteristic == 1 and comps[0].boundary == 1
