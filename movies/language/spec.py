@@ -18,9 +18,12 @@ The notation (``grammar/README.md``, "Writing a diagram", has the full reference
 ================================  ============================================================
 
 Errors carry the line and column of the spot: :class:`SpecSyntaxError` for text the grammar
-cannot read (or a word it does not know), and located versions of the constructors' errors (:class:`SpecTableError` for an
-unknown table name, ...) for text that reads but names something that does not exist. Each has
-``context()``, the offending line with a caret under the spot.
+cannot read (or a word it does not know), located versions of the constructors' errors
+(:class:`SpecTableError` for an unknown table name, ...) for text that reads but names something
+that does not exist, and :class:`LocatedLimitError` for text past a limit of
+:mod:`movies.limits` (all classes of :mod:`movies.errors`). Each has ``context()``, the
+offending line with a caret under the spot. Reading takes time in proportion to the text: the
+tree is built and walked without recursion, and nesting is bounded by the ``depth`` limit.
 
 >>> parse_diagram("3_1 # mirror(3_1)").writhe()
 0
