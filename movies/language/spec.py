@@ -215,6 +215,8 @@ def _leaf_size(node) -> tuple[int, int]:
             return len(children[1].children), 0
         if kind == "pd":
             return len(children[0].children), 0
+    except InternalError:
+        raise
     except (MoviesError, ValueError):  # the builder reports what is wrong with it, where it is
         pass
     return 0, 0
