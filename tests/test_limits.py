@@ -63,7 +63,7 @@ def test_using_refuses_unknown_limits_and_bad_values(changes, fragment):
 # ---------------------------------------------------------------------- numbers past the digits limit
 
 
-@pytest.mark.parametrize("text, column", [
+SPEC_DIGITS = [
     ("unlink(<BIG>)", 8),
     ("torus(2, <BIG>)", 10),
     ("braid[1, <BIG>]", 10),
@@ -74,7 +74,10 @@ def test_using_refuses_unknown_limits_and_bad_values(changes, fragment):
     ("reverse(L2a1{1}, <BIG>)", 18),
     ("3_<BIG>", 3),
     ("L2a1{<BIG>}", 6),
-])
+]
+
+
+@pytest.mark.parametrize("text, column", SPEC_DIGITS)
 def test_a_number_with_too_many_digits_in_a_diagram_is_refused_where_it_stands(text, column):
     text = text.replace("<BIG>", BIG)
     with pytest.raises(LocatedLimitError) as info:
@@ -83,7 +86,7 @@ def test_a_number_with_too_many_digits_in_a_diagram_is_refused_where_it_stands(t
     assert (err.reason, err.line, err.column, err.name) == (digits_message(), 1, column, "digits")
 
 
-@pytest.mark.parametrize("statement, column", [
+MOVIE_DIGITS = [
     ("band <BIG> 3", 6), ("band 1 2 in face <BIG>", 18), ("R1 add <BIG> left +", 8),
     ("R1 remove 1 kink <BIG>", 18), ("R2 add 1 over <BIG> in face 2", 15), ("R3 face <BIG>", 9),
     ("birth in face <BIG>", 15), ("death <BIG>", 7), ("twist +1 across 3 <BIG>", 19),
@@ -91,7 +94,10 @@ def test_a_number_with_too_many_digits_in_a_diagram_is_refused_where_it_stands(t
     ("expect components <BIG>", 19), ("expect signature -<BIG>", 19), ("expect jones t^<BIG> + 1", 16),
     ("expect jones <BIG>*t^2", 14), ("expect alexander t^(-<BIG>)", 22), ("simplify to <BIG> crossings", 13),
     ("surface genus <BIG>", 15), ("isotopic to torus(2, <BIG>)", 22),
-])
+]
+
+
+@pytest.mark.parametrize("statement, column", MOVIE_DIGITS)
 def test_a_number_with_too_many_digits_in_a_movie_is_refused_where_it_stands(statement, column):
     with pytest.raises(LocatedLimitError) as info:
         parse_movie("start 3_1\n" + statement.replace("<BIG>", BIG))
@@ -130,7 +136,7 @@ def test_the_digits_limit_can_be_raised(capsys):
 # ---------------------------------------------------------------------- numbers that fit but are absurd
 
 
-@pytest.mark.parametrize("text, message, column", [
+SPEC_SIZES = [
     ("torus(2, 1000000000)",
      "torus(2, 1000000000) would have 1000000000 crossings; the limit is 2000 (raise it with --limit crossings=N)", 1),
     ("unlink(100000000)",
@@ -146,11 +152,41 @@ def test_the_digits_limit_can_be_raised(capsys):
      "the disjoint union would have 2001 crossings; the limit is 2000 (raise it with --limit crossings=N)", 1),
     ("unlink(600) # unlink(600)",
      "the connected sum would have 1199 components; the limit is 1000 (raise it with --limit components=N)", 1),
-])
+]
+
+
+@pytest.mark.parametrize("text, message, column", SPEC_SIZES)
 def test_sizes_past_the_limits_are_refused_before_the_diagram_is_built(text, message, column):
     with pytest.raises(LocatedLimitError) as info:
         parse_diagram(text)
     assert (info.value.reason, info.value.column) == (message, column)
+
+
+@pytest.mark.parametrize("text, message, column", SPEC_SIZES + [
+    (f"torus(3, {10 ** 20})", digits_message(str(10 ** 20), 21), 10),
+    ("braid(9223372036854775808)[]", digits_message("9223372036854775808", 19), 7),
+])
+def test_the_command_line_refuses_sizes_past_the_limits_with_exit_2(capsys, text, message, column):
+    code, out, err = run(capsys, "invariants", "--classical", text)
+    assert (code, out) == (2, "")
+    assert err.splitlines()[0] == f"movies: error: {message} (line 1, column {column})"
+    assert "Traceback" not in err
+
+
+@pytest.mark.parametrize("text, column", SPEC_DIGITS)
+def test_the_command_line_refuses_long_numbers_in_a_diagram_with_exit_2(capsys, text, column):
+    code, out, err = run(capsys, "draw", text.replace("<BIG>", BIG), "-o", "never-written.svg")
+    assert (code, out) == (2, "")
+    assert err.splitlines()[0] == f"movies: error: {digits_message()} (line 1, column {column})"
+
+
+@pytest.mark.parametrize("statement, column", MOVIE_DIGITS)
+def test_the_command_line_refuses_long_numbers_in_a_movie_with_exit_2(capsys, tmp_path, statement, column):
+    movie = tmp_path / "long.movie"
+    movie.write_text("start 3_1\n" + statement.replace("<BIG>", BIG) + "\n")
+    code, out, err = run(capsys, "check", str(movie))
+    assert (code, out) == (2, "")
+    assert err.splitlines()[0] == f"movies: error: {digits_message()} (line 2, column {column})"
 
 
 def test_a_huge_strand_count_that_fits_the_digits_limit_is_refused_by_the_strand_limit():
