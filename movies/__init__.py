@@ -22,6 +22,7 @@ from movies.diagram.constructors import (
 from movies.diagram.isotopy import canonical_form, same_on_sphere, same_up_to_reflection
 from movies.diagram.model import Diagram, Side
 from movies.diagram.pd import from_pd
+from movies import limits
 from movies.errors import MoviesError
 from movies.invariants.alexander import alexander_polynomial, determinant
 from movies.invariants.jones import jones_polynomial
@@ -39,7 +40,7 @@ Diagram._repr_svg_ = svg_repr
 CheckResult._repr_html_ = html_repr
 
 __all__ = [
-    "Diagram", "Side", "MoviesError",
+    "Diagram", "Side", "MoviesError", "limits",
     "from_pd", "from_braid", "from_table", "torus_link", "unknot", "unlink",
     "disjoint_union", "connected_sum", "mirror", "reverse", "parse_diagram",
     "canonical_form", "same_on_sphere", "same_up_to_reflection",

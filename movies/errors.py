@@ -181,7 +181,11 @@ def _line_of(text: str, number: int) -> str:
 
 
 class LocatedLimitError(LocatedError, LimitError):
-    """Text past one of the limits of :mod:`movies.limits`, with the spot."""
+    """Text past one of the limits of :mod:`movies.limits`, with the spot; ``name`` is the limit's."""
+
+    def __init__(self, reason: str, text: str, line: int, column: int, name: str = "") -> None:
+        super().__init__(reason, text, line, column)
+        self.name = name
 
 
 class SpecSyntaxError(LocatedError, InputError):

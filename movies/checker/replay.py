@@ -21,7 +21,7 @@ from dataclasses import dataclass, field
 from movies import limits
 from movies.checker import search
 from movies.diagram.moves import NewNames
-from movies.diagram.steps import MoveRecord, Places, perform, places_named
+from movies.diagram.steps import MoveRecord, Places, growth, perform, places_named
 from movies.diagram.constructors import unlink
 from movies.bounds.ambient import Ambient
 from movies.bounds.verdicts import BoundsReport, surface_ambient, surface_bounds
@@ -243,7 +243,6 @@ class _Replay:
 
     def step(self, statement: Statement) -> bool:
         before = self.frame
-        self.check_size(statement, before)
         try:
             if statement.kind == "simplify":
                 self.result.places.append(Places())
@@ -253,6 +252,7 @@ class _Replay:
                 new, transition, certified, note, found = self.isotopic(statement)
             else:
                 record = record_of(statement)
+                self.check_size(statement, record, before)
                 self.result.places.append(places_named(record))  # what the step names, until it applies
                 outcome = perform(record, before)
                 new, transition, note, self.result.places[-1] = (outcome.diagram, outcome.transition, outcome.note,
@@ -268,16 +268,15 @@ class _Replay:
         self.record(statement, certified, note, found)
         return True
 
-    def check_size(self, statement: Statement, before: Diagram) -> None:
-        """Refuse a step whose frame would be past the limits, before it is made."""
-        kind, a = statement.kind, statement.args
-        strands = len(a["edges"]) if kind == "twist" else 0
-        crossings = before.crossing_count() + {"R1+": 1, "R2+": 2}.get(kind, strands * (strands - 1))
-        components = before.component_count() + (kind == "birth")
+    def check_size(self, statement: Statement, record: MoveRecord, before: Diagram) -> None:
+        """Refuse a move whose frame would be past the limits, before it is made."""
+        added_crossings, added_components = growth(record)
+        crossings = before.crossing_count() + added_crossings
+        components = before.component_count() + added_components
         for name, value, what in (("crossings", crossings, "crossings"), ("components", components, "components")):
             if value > limits.current()[name]:
                 raise LocatedLimitError(limits.exceeds(name, f"step {self.number} would make a frame of {value} {what}"),
-                                        self.movie.text, statement.line, statement.column)
+                                        self.movie.text, statement.line, statement.column, name)
 
     def simplify(self, statement: Statement):
         target = statement.args
@@ -371,7 +370,8 @@ class _Replay:
 
     def claim(self, statement: Statement, fact: str, value: int | None) -> None:
         s = self.result.surface
-        assert s is not None
+        if s is None:  # pragma: no cover - claims are judged only after a complete replay
+            raise InternalError("a surface claim was judged before the surface was known")
         comps = s.components
         if fact == "disk":
             holds = len(comps) == 1 and comps[0].orientable and comps[0].euler_characteristic == 1 and comps[0].boundary == 1

@@ -231,12 +231,17 @@ def _run_invariants(args: argparse.Namespace) -> int:
     from movies.report.invariants import invariants_text
     from movies.invariants.summary import classical_invariants
 
+    fields = ["Q", "F2"] + [f for f in args.field if f.upper() not in ("Q", "F2")]
+    if not args.classical:
+        from movies.homology.rings import parse_field
+
+        for field in fields:  # a field that is not one is refused before any work
+            parse_field(field)
     label, diagram = diagram_from_arguments(args)
     facts = classical_invariants(diagram)
     if not args.classical and not diagram.is_empty():
         from movies.homology.summary import homology_summary
 
-        fields = ["Q", "F2"] + [f for f in args.field if f.upper() not in ("Q", "F2")]
         with _progress("homology") as report:
             facts.update(homology_summary(diagram, fields, args.reduced, args.bar_natan, progress=report))
     if args.json:
@@ -336,9 +341,10 @@ def _run_draw(args: argparse.Namespace) -> int:
 
 
 def _run_frames(args: argparse.Namespace) -> int:
+    wanted = _number(args.at, "--at")
     result = _checked(args)
     last = len(result.frames) - 1
-    at = last if args.at is None else _number(args.at, "--at")
+    at = last if wanted is None else wanted
     if not 0 <= at <= last:
         stop = " (the movie stops at an invalid step)" if not result.complete else ""
         raise InputError(f"there is no frame after step {at}: the frames run from 0 to {last}{stop}")

@@ -22,8 +22,9 @@ returns the diagram (the search calls it thousands of times).
 (((1, 1, True), (2, 1, True)), Places(edges=(1, 2), faces=(2,), crossings=()), 'band across face 2 merges components 1 and 2')
 
 To add a move: its function in :mod:`movies.diagram.moves`, its fields in :data:`FIELDS`, its
-text in :meth:`MoveRecord.__str__`, a case in :data:`_CALL` and in :func:`_outcome`, and its
-grammar rule with a Transformer method in :mod:`movies.language.movie`.
+text in :meth:`MoveRecord.__str__`, a case in :data:`_CALL`, in :func:`_outcome` and (if it adds
+crossings or components) in :func:`growth`, and its grammar rule with a Transformer method in
+:mod:`movies.language.movie`.
 """
 
 from __future__ import annotations
@@ -39,7 +40,7 @@ from movies.wording import plural
 
 __all__ = [
     "KINDS", "FIELDS", "MoveRecord", "Transition", "Places", "Outcome",
-    "perform", "apply", "identity_transition", "places_named",
+    "perform", "apply", "identity_transition", "places_named", "growth",
 ]
 
 #: the fields each kind of move takes, in the order of its function's arguments
@@ -288,6 +289,21 @@ def _reidemeister_places(record: MoveRecord, before: Diagram) -> Places:
     if kind in ("R2-", "R3"):
         return Places(faces=(record.face,), crossings=tuple(sorted(set(before.face_crossings(record.face)))))
     raise InternalError(f"no places for a move of kind {kind}")
+
+
+def growth(record: MoveRecord) -> tuple[int, int]:
+    """How many crossings and components a move adds at most, known before it is made.
+
+    The checker compares these with the limits before it performs the move.
+
+    >>> growth(MoveRecord("twist", edges=(1, 2, 3), turns=-1)), growth(MoveRecord("birth", face=1))
+    ((6, 0), (0, 1))
+    """
+    kind = record.kind
+    if kind == "twist":
+        strands = len(record.edges)
+        return abs(record.turns) * strands * (strands - 1), 0
+    return {"R1+": 1, "R2+": 2}.get(kind, 0), int(kind == "birth")
 
 
 def places_named(record: MoveRecord) -> Places:

@@ -55,7 +55,7 @@ import re
 import database_knotinfo
 
 from movies import limits
-from movies.errors import InputError, PDCodeError, TableError
+from movies.errors import InputError, LimitError, PDCodeError, TableError
 
 __all__ = ["TableEntry", "canonical_name", "lookup", "table_names", "table_row"]
 
@@ -282,7 +282,9 @@ def canonical_name(name: str) -> str:
         raise TableError(f"a table name must be text, not {type(name).__name__}")
     text = name.strip()
     for run in re.findall(r"[0-9]+", text):
-        limits.check("digits", len(run), f"the number {limits.show_number(run)} in a table name has {len(run)} digits")
+        message = limits.digits_error(run)
+        if message:
+            raise LimitError(message, "digits")
     if len(text) > _LONGEST_NAME:  # no table name is this long; spare the search for close names
         raise TableError(f"no knot or link is named {text[:20]!r}…: table names have at most "
                          f"{_LONGEST_NAME} characters")

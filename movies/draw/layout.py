@@ -450,6 +450,35 @@ def _orientations(xy: np.ndarray, tri: np.ndarray) -> np.ndarray:
     return (b[:, 0] - a[:, 0]) * (c[:, 1] - a[:, 1]) - (b[:, 1] - a[:, 1]) * (c[:, 0] - a[:, 0])
 
 
+#: pairs of vertices handled in one numpy call of the repulsion: bounds its memory, and the
+#: time between two points where Python can act on Ctrl-C
+PAIRS_PER_BLOCK = 1 << 18
+
+
+def _repulsion(pts: np.ndarray, ideal: float) -> tuple[np.ndarray, np.ndarray]:
+    """The push on each point from the points within three ideal lengths, and the distance to
+    its nearest neighbour, computed a block of rows at a time (never an n × n array at once).
+
+    >>> force, nearest = _repulsion(np.array([[0.0, 0.0], [1.0, 0.0]]), 1.0)
+    >>> force.tolist(), nearest.tolist()
+    ([[-1.0, 0.0], [1.0, 0.0]], [1.0, 1.0])
+    """
+    n = len(pts)
+    force = np.zeros((n, 2))
+    nearest = np.zeros(n)
+    rows = max(1, PAIRS_PER_BLOCK // max(n, 1))
+    for first in range(0, n, rows):
+        last = min(n, first + rows)
+        delta = pts[first:last, None, :] - pts[None, :, :]
+        dist2 = (delta ** 2).sum(axis=2)
+        dist2[np.arange(last - first), np.arange(first, last)] += 1e9
+        near = dist2 < (3 * ideal) ** 2
+        push = np.where(near, ideal ** 2 / dist2, 0.0)
+        force[first:last] = (delta * push[..., None]).sum(axis=1)
+        nearest[first:last] = np.sqrt(dist2.min(axis=1))
+    return force, nearest
+
+
 def refine(xy: np.ndarray, adjacency: list[set[int]], boundary: dict[int, Point], triangles: list[tuple[int, int, int]],
            drawn: int, strokes: list[tuple[int, int]], rounds: int) -> np.ndarray:
     """Spread a barycentric picture out by springs, never letting a triangle turn over.
@@ -481,17 +510,12 @@ def refine(xy: np.ndarray, adjacency: list[set[int]], boundary: dict[int, Point]
         ideal = float(np.median(lengths))
         if ideal <= 0:
             break
-        delta = pts[:, None, :] - pts[None, :, :]
-        dist2 = (delta ** 2).sum(axis=2) + np.eye(drawn) * 1e9
-        near = dist2 < (3 * ideal) ** 2
-        push = np.where(near, ideal ** 2 / dist2, 0.0)
-        force = (delta * push[..., None]).sum(axis=1)
+        force, nearest = _repulsion(pts, ideal)
         pull = (pts[edges[:, 1]] - pts[edges[:, 0]]) * (lengths / ideal)[:, None]
         np.add.at(force, edges[:, 0], pull)
         np.add.at(force, edges[:, 1], -pull)
         size = np.sqrt((force ** 2).sum(axis=1))
         # a step of at most a third of the distance to the nearest other drawn vertex
-        nearest = np.sqrt(dist2.min(axis=1))
         step = np.minimum(size, 0.3 * nearest) * (1 - round_ / rounds)
         move = np.where(size[:, None] > 0, force / np.maximum(size, 1e-300)[:, None] * step[:, None], 0.0)
         move[~movable] = 0.0

@@ -37,7 +37,7 @@ from __future__ import annotations
 from fractions import Fraction
 
 from movies.algebra.laurent import LaurentPolynomial
-from movies.errors import EmptyDiagramError, PDCodeError
+from movies.errors import EmptyDiagramError, InternalError, PDCodeError
 from movies.diagram.scan_order import checked_pd, connected_pieces, piece_order
 
 __all__ = [
@@ -213,7 +213,8 @@ def _bracket_piece(cross: list) -> LaurentPolynomial:
             del boundary[p]
         boundary.extend(new_labels)
         pos = {label: i for i, label in enumerate(boundary)}
-    assert not boundary and len(states) <= 1
+    if boundary or len(states) > 1:  # pragma: no cover - every arc is glued by the last crossing
+        raise InternalError("the bracket scan ended with open arcs")
     value = states.get((), 0)
     terms = {}
     for k, coeff in enumerate(_decode(value, bits)):

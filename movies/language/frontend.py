@@ -72,7 +72,7 @@ def check_digits(digits: str, text: str, line: int, column: int, what: str = "")
     """
     message = limits.digits_error(digits, what)
     if message:
-        raise LocatedLimitError(message, text, line, column)
+        raise LocatedLimitError(message, text, line, column, "digits")
 
 
 def read_int(token: Token, text: str) -> int:
@@ -120,13 +120,13 @@ def nesting_problem(text: str, comment: str | None = "%", strings: bool = False)
     return None
 
 
-def depth_message(depth: int, what: str = "brackets") -> str:
+def depth_message(depth: int, what: str = "brackets", how: str = "") -> str:
     """The message for nesting past the depth limit.
 
     >>> depth_message(101)
     'brackets nest 101 deep here; the limit is 100 (raise it with --limit depth=N)'
     """
-    return limits.exceeds("depth", f"{what} nest {depth} deep here")
+    return limits.exceeds("depth", f"{what} nest {depth} deep here{how}")
 
 
 def check_nesting(text: str) -> None:
@@ -139,4 +139,4 @@ def check_nesting(text: str) -> None:
     """
     offset = nesting_problem(text)
     if offset is not None:
-        raise LocatedLimitError(depth_message(limits.current()["depth"] + 1), text, *position(text, offset))
+        raise LocatedLimitError(depth_message(limits.current()["depth"] + 1), text, *position(text, offset), "depth")

@@ -310,7 +310,7 @@ class _Reader:
         try:
             limits.check("seconds", seconds, f"budget {seconds} seconds would let one search run {seconds} seconds")
         except LimitError as err:
-            raise LocatedLimitError(str(err), self.text, token.line, token.column) from None
+            raise LocatedLimitError(str(err), self.text, token.line, token.column, "seconds") from None
         return seconds
 
     def target(self, token: Token | None) -> dict[str, Any]:
@@ -382,7 +382,7 @@ def parse_movie(text: str) -> Movie:
     count = text.count("\n") + 1
     most = limits.current()["lines"]
     if count > most:
-        raise LocatedLimitError(limits.exceeds("lines", f"the movie has {count} lines"), text, most + 1, 1)
+        raise LocatedLimitError(limits.exceeds("lines", f"the movie has {count} lines"), text, most + 1, 1, "lines")
     try:
         tree = movie_parser().parse(text if text.endswith("\n") else text + "\n")
     except UnexpectedInput as err:

@@ -18,9 +18,12 @@ The notation (``grammar/README.md``, "Writing a diagram", has the full reference
 ================================  ============================================================
 
 Errors carry the line and column of the spot: :class:`SpecSyntaxError` for text the grammar
-cannot read (or a word it does not know), and located versions of the constructors' errors (:class:`SpecTableError` for an
-unknown table name, ...) for text that reads but names something that does not exist. Each has
-``context()``, the offending line with a caret under the spot.
+cannot read (or a word it does not know), located versions of the constructors' errors
+(:class:`SpecTableError` for an unknown table name, ...) for text that reads but names something
+that does not exist, and :class:`LocatedLimitError` for text past a limit of
+:mod:`movies.limits` (all classes of :mod:`movies.errors`). Each has ``context()``, the
+offending line with a caret under the spot. Reading takes time in proportion to the text: the
+tree is built and walked without recursion, and nesting is bounded by the ``depth`` limit.
 
 >>> parse_diagram("3_1 # mirror(3_1)").writhe()
 0
@@ -40,6 +43,7 @@ from __future__ import annotations
 
 import difflib
 import functools
+import math
 import re
 
 from lark import Lark, Token, Tree
@@ -49,7 +53,7 @@ from movies import limits
 from movies.diagram import constructors
 from movies.diagram.model import Diagram
 from movies.diagram.pd import from_pd
-from movies.diagram.tables import canonical_name
+from movies.diagram.tables import canonical_name, lookup
 from movies.errors import (
     BraidError,
     GeneratorError,
@@ -145,9 +149,12 @@ def parse_diagram(text: str) -> Diagram:
         raise _syntax_error(text, err) from None
     root = tree.children[0]
     _check_tree(text, root)
+    _check_sizes(text, root)
     return _Builder(text).build(root)
 
 
+#: what counts as one level of nesting, beside brackets
+_LEVELS = " (each '#', '+', mirror and reverse is one level)"
 #: the parts of the tree that hold diagrams, by the kind of node
 _PARTS = {"mirror": (0,), "reverse": (0,), "union": (0, 2), "connected_sum": (0, 2)}
 
@@ -173,9 +180,65 @@ def _check_tree(text: str, root) -> None:
         if node.data in _PARTS:
             depth += 1
             if depth > deepest:
-                raise LocatedLimitError(depth_message(depth, "diagrams ('#', '+', mirror, reverse)"),
-                                        text, node.meta.line, node.meta.column)
+                raise LocatedLimitError(depth_message(depth, "diagrams", _LEVELS),
+                                        text, node.meta.line, node.meta.column, "depth")
         stack.extend((child, depth) for child in node.children)
+
+
+def _post_order(root):
+    """The diagram nodes of the tree, each after the diagrams it is made of (no recursion)."""
+    order, stack = [], [root]
+    while stack:
+        node = stack.pop()
+        order.append(node)
+        stack.extend(node.children[i] for i in _PARTS.get(node.data, ()))
+    return reversed(order)
+
+
+def _leaf_size(node) -> tuple[int, int]:
+    """Crossings and components of a diagram that is not made of others, read off the text
+    without building it (0 where that is not cheap: the constructors check those themselves)."""
+    kind, children = node.data, node.children
+    try:
+        if kind == "table":
+            entry = lookup(str(children[0]))
+            return len(entry.pd), entry.components
+        if kind == "unknot":
+            return 0, 1
+        if kind == "unlink":
+            return 0, max(0, int(children[0]))
+        if kind == "torus":
+            p, q = int(children[0]), int(children[1])
+            p, q = (-p, -q) if p < 0 else (p, q)
+            return ((0, abs(q)) if p == 0 else ((p - 1) * abs(q), math.gcd(p, q) if q else p))
+        if kind == "braid":
+            return len(children[1].children), 0
+        if kind == "pd":
+            return len(children[0].children), 0
+    except InternalError:
+        raise
+    except (MoviesError, ValueError):  # the builder reports what is wrong with it, where it is
+        pass
+    return 0, 0
+
+
+def _check_sizes(text: str, root) -> None:
+    """Refuse a union or connected sum past the crossing or component limit before any of its
+    parts is built: their sizes add up."""
+    sizes: dict[int, tuple[int, int]] = {}
+    for node in _post_order(root):
+        parts = [sizes.pop(id(node.children[i])) for i in _PARTS.get(node.data, ())]
+        if node.data in ("union", "connected_sum"):
+            (c1, k1), (c2, k2) = parts
+            size = (c1 + c2, k1 + k2 - (node.data == "connected_sum" and k1 > 0 and k2 > 0))
+            what = "disjoint union" if node.data == "union" else "connected sum"
+            for name, value in zip(("crossings", "components"), size):
+                if value > limits.current()[name]:
+                    raise LocatedLimitError(limits.exceeds(name, f"the {what} would have {value} {name}"),
+                                            text, node.meta.line, node.meta.column, name)
+        else:
+            size = parts[0] if parts else _leaf_size(node)
+        sizes[id(node)] = size
 
 
 # ---------------------------------------------------------------------- syntax errors
@@ -285,7 +348,7 @@ def _unknown_word(word: str) -> str:
     return f"'{word}' is not a word of the notation{hint}"
 
 
-def _glued_name(text: str, offset: int) -> SpecTableError | None:
+def _glued_name(text: str, offset: int) -> LocatedError | None:
     """A run of letters and digits that the lexer split in two (``3_1x``), read as a table name."""
     if not (0 < offset < len(text) and _NAME_CHAR.match(text[offset - 1]) and _NAME_CHAR.match(text[offset])):
         return None
@@ -296,9 +359,8 @@ def _glued_name(text: str, offset: int) -> SpecTableError | None:
         end += 1
     try:
         canonical_name(text[start:end])
-    except TableError as err:
-        line, column = _position(text, start)
-        return SpecTableError(str(err), text, line, column)
+    except (TableError, LimitError) as err:
+        return located(err, text, *_position(text, start))
     return None  # pragma: no cover - a whole table name is one token
 
 
