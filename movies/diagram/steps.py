@@ -100,6 +100,8 @@ class MoveRecord:
     def __post_init__(self) -> None:
         if self.kind not in FIELDS:
             raise MoveError(f"a move is one of {', '.join(KINDS)}, not {self.kind!r}")
+        if self.kind == "birth" and self.counterclockwise is None:
+            object.__setattr__(self, "counterclockwise", True)  # circles are born counterclockwise
         needed = FIELDS[self.kind]
         for name in _ALL:
             value = getattr(self, name)
