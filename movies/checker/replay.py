@@ -20,7 +20,6 @@ from dataclasses import dataclass, field
 
 from movies import limits
 from movies.checker import search
-from movies.diagram.moves import NewNames
 from movies.diagram.steps import MoveRecord, Places, growth, perform, places_named
 from movies.diagram.constructors import unlink
 from movies.bounds.ambient import Ambient
@@ -159,21 +158,6 @@ def _checkpoint(statement: Statement, outcome: str, detail: str) -> Checkpoint:
     return Checkpoint(statement.line, statement.source.split("%")[0].strip(), outcome, detail)
 
 
-def record_of(statement: Statement) -> MoveRecord:
-    """The move record of a move statement of the movie language.
-
-    >>> from movies.language.movie import parse_movie
-    >>> str(record_of(parse_movie("start unknot\\nR1 add 1 left + new crossings 5").steps[0]))
-    'R1 add 1 left + new crossings 5'
-    """
-    args = dict(statement.args)
-    names = args.pop("names", None)
-    if "edges" in args:
-        args["edges"] = tuple(args["edges"])
-    chosen = NewNames(**{k: tuple(v) for k, v in names.items()}) if names else None
-    return MoveRecord(statement.kind, **args, names=chosen)
-
-
 class _Replay:
     def __init__(self, movie: Movie, budget: float, with_bounds: bool = True) -> None:
         self.with_bounds = with_bounds
@@ -251,7 +235,7 @@ class _Replay:
                 self.result.places.append(Places())
                 new, transition, certified, note, found = self.isotopic(statement)
             else:
-                record = record_of(statement)
+                record = statement.record
                 self.check_size(statement, record, before)
                 self.result.places.append(places_named(record))  # what the step names, until it applies
                 outcome = perform(record, before)

@@ -37,6 +37,8 @@ Moves may end with ``new edges 20 21, faces 7`` to choose the names of what they
 ... surface disk''')
 >>> [s.kind for s in movie.steps], movie.claims[0].args
 (['R1+', 'R1-', 'death'], {'facts': [('disk', None)]})
+>>> movie.steps[0].record
+MoveRecord('R1+', edge=1, hand='L', sign=1)
 """
 
 from __future__ import annotations
@@ -47,18 +49,21 @@ import re
 from dataclasses import dataclass, field
 from typing import Any
 
-from lark import Lark, Token, Tree
-from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput, UnexpectedToken
+from lark import Lark, Token, Transformer, v_args
+from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput, UnexpectedToken, VisitError
 
 from movies import limits
 from movies.algebra.laurent import LaurentPolynomial
 from movies.diagram.model import Diagram
+from movies.diagram.moves import NewNames
+from movies.diagram.steps import MoveRecord
 from movies.errors import (
     InputError,
     InternalError,
     LimitError,
     LocatedError,
     LocatedLimitError,
+    MoveError,
     MovieInputError,
     MovieSyntaxError,
     MoviesError,
@@ -82,9 +87,11 @@ MOVE_KINDS = ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "twist
 class Statement:
     """One statement of a movie, as plain data.
 
-    ``kind`` is one of ``title start band R1+ R1- R2+ R2- R3 birth death simplify isotopic
-    expect surface budget``; ``args`` holds its arguments (diagrams already read); ``line``
-    and ``column`` locate it; ``source`` is its line of text.
+    ``kind`` is one of ``title start band R1+ R1- R2+ R2- R3 birth death twist simplify
+    isotopic expect surface budget``; a move (``band`` to ``twist``) carries its
+    :class:`~movies.diagram.steps.MoveRecord` in ``record``, every other statement its
+    arguments in ``args`` (diagrams already read); ``line`` and ``column`` locate it;
+    ``source`` is its line of text.
     """
 
     kind: str
@@ -92,6 +99,7 @@ class Statement:
     column: int
     source: str
     args: dict = field(default_factory=dict)
+    record: MoveRecord | None = None
 
 
 @dataclass(frozen=True)
@@ -212,14 +220,21 @@ def _syntax_error(text: str, err: UnexpectedInput) -> MovieSyntaxError:
 # ---------------------------------------------------------------------- from the tree to statements
 
 
-class _Reader:
-    """Turns the parse tree's statements into :class:`Statement` records, one pass over the
-    text's lines (split once), every number checked against the digits limit."""
+class _Reader(Transformer):
+    """Builds one :class:`Statement` per line of the parse tree, one method per grammar rule.
+
+    Move lines become :class:`~movies.diagram.steps.MoveRecord` records (the step vocabulary the
+    checker, the search and the report share); the small rules (``in_face``, ``new_names``,
+    ``gate_edges``, the facts of a claim) become plain values first, bottom up. Every number is
+    checked against the digits limit; the text's lines are split once.
+    """
 
     def __init__(self, text: str) -> None:
+        super().__init__(visit_tokens=False)
         self.text = text
         self.lines = Lines(text)
 
+    # ------------------------------------------------------------ values
     def number(self, token: Token) -> int:
         return read_int(token, self.text)
 
@@ -250,68 +265,156 @@ class _Reader:
             raise MovieInputError(f"cannot read the polynomial '{str(token).strip()}': {err}",
                                   self.text, token.line, token.column) from None
 
-    def names(self, tree: Tree | None) -> dict[str, tuple[int, ...]]:
+    def _statement(self, meta, kind: str, **args) -> Statement:
+        return Statement(kind, meta.line, meta.column, self.lines[meta.line], args)
+
+    def _move(self, meta, kind: str, **fields) -> Statement:
+        try:
+            record = MoveRecord(kind, **fields)
+        except MoveError as err:  # pragma: no cover - the grammar gives every move its fields
+            raise InternalError(f"the reader built a {kind} move it cannot record: {err}") from err
+        return Statement(kind, meta.line, meta.column, self.lines[meta.line], {}, record)
+
+    # ------------------------------------------------------------ small rules
+    def in_face(self, children) -> int:
+        return self.number(children[0])
+
+    def gate_start(self, children) -> int:
+        return self.number(children[0])
+
+    def gate_edges(self, children) -> tuple[int, ...]:
+        return tuple(self.number(token) for token in children)
+
+    def name_group(self, children) -> tuple[str, tuple[int, ...]]:
+        return str(children[0]).rstrip("s") + "s", tuple(self.number(token) for token in children[1:])
+
+    def new_names(self, children) -> NewNames:
         chosen: dict[str, list[int]] = {}
-        if tree is None:
-            return {}
-        for group in tree.children:
-            kind = str(group.children[0]).rstrip("s")
-            chosen.setdefault(kind + "s", []).extend(self.number(t) for t in group.children[1:])
-        return {kind: tuple(values) for kind, values in chosen.items()}
+        for kind, values in children:
+            chosen.setdefault(kind, []).extend(values)
+        return NewNames(**{kind: tuple(values) for kind, values in chosen.items()})
 
-    def face(self, tree: Tree | None) -> int | None:
-        return None if tree is None else self.number(tree.children[0])
+    def disk(self, children):
+        return ("disk", None)
 
-    def statement(self, tree: Tree) -> Statement:
-        kind = tree.data
-        line, column = tree.meta.line, tree.meta.column
-        source = self.lines[line]
-        c = tree.children
-        number, names, face = self.number, self.names, self.face
-        make = lambda k, **args: Statement(k, line, column, source, args)  # noqa: E731
-        if kind == "title":
-            return make("title", text=str(c[0]).strip() if c and c[0] is not None else "")
-        if kind == "first":
-            return make("start", diagram=self.diagram(c[0]), spec=str(c[0]).strip())
-        if kind == "band":
-            return make("band", first=number(c[0]), second=number(c[1]), face=face(c[2]), names=names(c[3]))
-        if kind == "r1_add":
-            hand = "L" if str(c[1]) in ("left", "L") else "R"
-            return make("R1+", edge=number(c[0]), hand=hand, sign=+1 if str(c[2]) == "+" else -1, names=names(c[3]))
-        if kind == "r1_remove":
-            return make("R1-", crossing=number(c[0]), kink=None if c[1] is None else number(c[1]))
-        if kind == "r2_add":
-            return make("R2+", over=number(c[0]), under=number(c[1]), face=face(c[2]), names=names(c[3]))
-        if kind == "r2_remove":
-            return make("R2-", face=face(c[0]))
-        if kind == "r3":
-            return make("R3", face=face(c[0]), names=names(c[1]))
-        if kind == "birth":
-            return make("birth", counterclockwise=c[0] is None or str(c[0]) == "ccw", face=face(c[1]), names=names(c[2]))
-        if kind == "death":
-            return make("death", component=number(c[0]))
-        if kind == "twist":
-            return make("twist", turns=+1 if str(c[0]) == "+1" else -1, edges=tuple(number(t) for t in c[1].children),
-                        start_face=face(c[2]), names=names(c[3]))
-        if kind == "simplify":
-            return make("simplify", **self.target(c[0]))
-        if kind == "isotopic":
-            return make("isotopic", diagram=self.diagram(c[0]), spec=str(c[0]).strip())
-        if kind.startswith("expect_"):
-            return make("expect", **self.expectation(kind, c))
-        if kind == "claim":
-            return make("surface", facts=[self.fact(f) for f in c])
-        if kind == "budget":
-            return make("budget", seconds=self.budget(c[0]))
-        raise InternalError(f"a statement the reader does not know: {kind}")  # pragma: no cover
+    def connected(self, children):
+        return ("connected", None)
 
-    def budget(self, token: Token) -> int:
+    def ribbon(self, children):
+        return ("ribbon", None)
+
+    def orientable(self, children):
+        return ("orientable", None)
+
+    def genus(self, children):
+        return ("genus", self.number(children[0]))
+
+    def euler(self, children):
+        return ("euler", self.number(children[0]))
+
+    def surface_components(self, children):
+        return ("components", self.number(children[0]))
+
+    # ------------------------------------------------------------ moves
+    @v_args(meta=True)
+    def band(self, meta, c):
+        return self._move(meta, "band", first=self.number(c[0]), second=self.number(c[1]), face=c[2], names=c[3])
+
+    @v_args(meta=True)
+    def r1_add(self, meta, c):
+        return self._move(meta, "R1+", edge=self.number(c[0]), hand="L" if str(c[1]) in ("left", "L") else "R",
+                          sign=+1 if str(c[2]) == "+" else -1, names=c[3])
+
+    @v_args(meta=True)
+    def r1_remove(self, meta, c):
+        return self._move(meta, "R1-", crossing=self.number(c[0]), kink=None if c[1] is None else self.number(c[1]))
+
+    @v_args(meta=True)
+    def r2_add(self, meta, c):
+        return self._move(meta, "R2+", over=self.number(c[0]), under=self.number(c[1]), face=c[2], names=c[3])
+
+    @v_args(meta=True)
+    def r2_remove(self, meta, c):
+        return self._move(meta, "R2-", face=c[0])
+
+    @v_args(meta=True)
+    def r3(self, meta, c):
+        return self._move(meta, "R3", face=c[0], names=c[1])
+
+    @v_args(meta=True)
+    def birth(self, meta, c):
+        return self._move(meta, "birth", face=c[1], counterclockwise=c[0] is None or str(c[0]) == "ccw", names=c[2])
+
+    @v_args(meta=True)
+    def death(self, meta, c):
+        return self._move(meta, "death", component=self.number(c[0]))
+
+    @v_args(meta=True)
+    def twist(self, meta, c):
+        return self._move(meta, "twist", edges=c[1], turns=+1 if str(c[0]) == "+1" else -1, start_face=c[2],
+                          names=c[3])
+
+    # ------------------------------------------------------------ the other statements
+    @v_args(meta=True)
+    def title(self, meta, c):
+        return self._statement(meta, "title", text=str(c[0]).strip() if c and c[0] is not None else "")
+
+    @v_args(meta=True)
+    def first(self, meta, c):
+        return self._statement(meta, "start", diagram=self.diagram(c[0]), spec=str(c[0]).strip())
+
+    @v_args(meta=True)
+    def simplify(self, meta, c):
+        return self._statement(meta, "simplify", **self.target(c[0]))
+
+    @v_args(meta=True)
+    def isotopic(self, meta, c):
+        return self._statement(meta, "isotopic", diagram=self.diagram(c[0]), spec=str(c[0]).strip())
+
+    @v_args(meta=True)
+    def claim(self, meta, c):
+        return self._statement(meta, "surface", facts=list(c))
+
+    @v_args(meta=True)
+    def budget(self, meta, c):
+        token = c[0]
         seconds = self.number(token)
         try:
             limits.check("seconds", seconds, f"budget {seconds} seconds would let one search run {seconds} seconds")
         except LimitError as err:
             raise LocatedLimitError(str(err), self.text, token.line, token.column, "seconds") from None
-        return seconds
+        return self._statement(meta, "budget", seconds=seconds)
+
+    @v_args(meta=True)
+    def expect_components(self, meta, c):
+        return self._statement(meta, "expect", what="components", value=self.number(c[0]))
+
+    @v_args(meta=True)
+    def expect_crossings(self, meta, c):
+        return self._statement(meta, "expect", what="crossings", value=self.number(c[0]))
+
+    @v_args(meta=True)
+    def expect_crossingless(self, meta, c):
+        return self._statement(meta, "expect", what="crossingless")
+
+    @v_args(meta=True)
+    def expect_unlink(self, meta, c):
+        return self._statement(meta, "expect", what="unlink")
+
+    @v_args(meta=True)
+    def expect_isotopic(self, meta, c):
+        return self._statement(meta, "expect", what="isotopic", diagram=self.diagram(c[0]), spec=str(c[0]).strip())
+
+    @v_args(meta=True)
+    def expect_value(self, meta, c):
+        invariant, value = str(c[0]), c[1]
+        if invariant in ("jones", "alexander"):
+            return self._statement(meta, "expect", what=invariant, value=self.polynomial(value))
+        words = str(value).strip()
+        if not re.fullmatch(r"[+-]?[0-9]+", words):
+            raise MovieInputError(f"the {invariant} is an integer, not '{words}'", self.text, value.line, value.column)
+        self.digits_in(value)
+        return self._statement(meta, "expect", what=invariant, value=int(words))
 
     def target(self, token: Token | None) -> dict[str, Any]:
         if token is None:
@@ -324,29 +427,8 @@ class _Reader:
             return {"target": "crossings", "crossings": int(words[0])}
         return {"target": "diagram", "diagram": self.diagram(token), "spec": str(token).strip()}
 
-    def expectation(self, kind: str, c: list) -> dict[str, Any]:
-        if kind == "expect_components":
-            return {"what": "components", "value": self.number(c[0])}
-        if kind == "expect_crossings":
-            return {"what": "crossings", "value": self.number(c[0])}
-        if kind == "expect_crossingless":
-            return {"what": "crossingless"}
-        if kind == "expect_unlink":
-            return {"what": "unlink"}
-        if kind == "expect_isotopic":
-            return {"what": "isotopic", "diagram": self.diagram(c[0]), "spec": str(c[0]).strip()}
-        invariant, value = str(c[0]), c[1]
-        if invariant in ("jones", "alexander"):
-            return {"what": invariant, "value": self.polynomial(value)}
-        words = str(value).strip()
-        if not re.fullmatch(r"[+-]?[0-9]+", words):
-            raise MovieInputError(f"the {invariant} is an integer, not '{words}'", self.text, value.line, value.column)
-        self.digits_in(value)
-        return {"what": invariant, "value": int(words)}
-
-    def fact(self, tree: Tree) -> tuple[str, int | None]:
-        name = {"surface_components": "components"}.get(tree.data, tree.data)
-        return (name, self.number(tree.children[0]) if tree.children else None)
+    def __default__(self, data, children, meta):  # pragma: no cover - every rule has its method
+        raise InternalError(f"a statement the reader does not know: {data}")
 
 
 def parse_movie(text: str) -> Movie:
@@ -388,7 +470,10 @@ def parse_movie(text: str) -> Movie:
     except UnexpectedInput as err:
         raise _syntax_error(text, err) from None
     reader = _Reader(text)
-    statements = [reader.statement(child) for child in tree.children]
+    try:
+        statements = [reader.transform(child) for child in tree.children]
+    except VisitError as err:  # lark wraps what a rule's method raises; ours are the errors to show
+        raise err.orig_exc from None
     starts = [s for s in statements if s.kind == "start"]
     if not starts:
         raise MovieSyntaxError("the movie has no first frame: write 'start DIAGRAM' before the first step", text, 1, 1)

@@ -32,7 +32,7 @@ def mutants(movie, frames, rng):
         number = [s for s in movie.statements if s.kind in
                   ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "simplify", "isotopic")].index(statement)
         frame = frames[number]
-        a = dict(statement.args)
+        a = {k: v for k, v in statement.record.arguments().items() if v is not None}
         options = []
         for key in ("first", "second", "edge", "over", "under"):
             if key in a:
@@ -52,12 +52,12 @@ def mutants(movie, frames, rng):
         if "component" in a:
             options += [("component", k) for k in frame.components if k != a["component"]]
         for key, value in options:
-            b = dict(a)
+            b = {}
             if key == "swap":
                 b["over"], b["under"] = a["under"], a["over"]
             else:
                 b[key] = value
-            changed = replace(statement, args=b)
+            changed = replace(statement, record=replace(statement.record, **b))
             statements = movie.statements[:index] + (changed,) + movie.statements[index + 1:]
             out.append((f"line {statement.line}: {key} -> {value}", replace(movie, statements=statements)))
     rng.shuffle(out)
@@ -72,7 +72,7 @@ def replay_alone(movie, result):
         if statement.kind not in ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "simplify", "isotopic"):
             continue
         record = next(records)
-        a = statement.args
+        a = statement.record.arguments() if statement.record is not None else statement.args
         if statement.kind == "band":
             frame = moves.saddle(frame, a["first"], a["second"], a["face"]).diagram
         elif statement.kind == "R1+":
@@ -100,7 +100,7 @@ def replay_alone(movie, result):
 
 
 def _explicit(frame, step):
-    a = step.args
+    a = step.record.arguments()
     return {
         "R1+": lambda: moves.r1_add(frame, a["edge"], a["hand"], a["sign"]),
         "R1-": lambda: moves.r1_remove(frame, a["crossing"], a["kink"]),

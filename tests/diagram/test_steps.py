@@ -6,7 +6,7 @@ outcome marks no place fails here.
 
 import pytest
 
-from movies.checker.replay import check_movie, record_of
+from movies.checker.replay import check_movie
 from movies.diagram.simplify.records import candidates
 from movies.diagram.steps import KINDS, MoveRecord, Outcome, perform
 from movies.errors import MoveError
@@ -46,11 +46,11 @@ def test_every_kind_has_a_sample():
 def test_every_kind_is_read_performed_marked_and_written_back(kind):
     spec, before, frame, line = _frame_and_line(kind)
     statement = parse_movie("\n".join([f"start {spec}", *before, line])).steps[-1]
-    record = record_of(statement)
+    record = statement.record
     assert record.kind == kind
     # written back: the record's text is the line, and reads as the same record
     assert str(record) == line
-    assert record_of(parse_movie(f"start {spec}\n{str(record)}").steps[-1]) == record
+    assert parse_movie(f"start {spec}\n{str(record)}").steps[-1].record == record
     # performed, with the places it acts on in the frame before it
     outcome = perform(record, frame)
     assert isinstance(outcome, Outcome) and outcome.diagram != frame

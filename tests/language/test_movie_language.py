@@ -9,6 +9,8 @@ from hypothesis import strategies as st
 
 from movies.cli.main import main
 from movies.errors import InputError, MoviesError
+from movies.diagram.moves import NewNames
+from movies.diagram.steps import MoveRecord
 from movies.language.movie import MovieSyntaxError, parse_movie
 
 EVERY_STATEMENT = """\
@@ -52,12 +54,12 @@ def test_every_statement_reads():
     assert kinds[:12] == ["band", "R1+", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "birth", "death",
                           "simplify", "simplify"]
     band = movie.statements[0]
-    assert band.args == {"first": 4, "second": 10, "face": 1, "names": {"edges": (40,), "faces": (50,)}}
+    assert band.record == MoveRecord("band", first=4, second=10, face=1, names=NewNames(edges=(40,), faces=(50,)))
     assert band.line == 3 and band.column == 1
-    assert movie.statements[1].args["names"] == {"crossings": (9,)}
-    assert movie.statements[2].args["hand"] == "R" and movie.statements[2].args["sign"] == -1
-    assert movie.statements[3].args == {"crossing": 9, "kink": 12}
-    assert movie.statements[8].args["counterclockwise"] is False
+    assert movie.statements[1].record.names == NewNames(crossings=(9,))
+    assert movie.statements[2].record.hand == "R" and movie.statements[2].record.sign == -1
+    assert movie.statements[3].record == MoveRecord("R1-", crossing=9, kink=12)
+    assert movie.statements[8].record.counterclockwise is False
     targets = [s.args["target"] for s in movie.statements if s.kind == "simplify"]
     assert targets == ["fewest", "crossingless", "crossings", "diagram"]
     expects = [s.args["what"] for s in movie.statements if s.kind == "expect"]
