@@ -30,7 +30,8 @@ from movies.invariants.seifert import seifert_matrix
 from movies.invariants.signature import levine_tristram, signature
 from movies.invariants.summary import classical_invariants
 from movies.language.spec import parse_diagram
-from movies.checker.replay import CheckResult, check_movie
+from movies.checker.replay import check_movie
+from movies.checker.result import CheckResult
 from movies.draw import svg_repr
 from movies.report import html_repr
 from movies.language.movie import parse_movie

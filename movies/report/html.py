@@ -17,7 +17,7 @@ from __future__ import annotations
 
 from html import escape
 
-from movies.checker.replay import CheckResult
+from movies.checker.result import CheckResult
 from movies.draw.svg import diagram_svg
 from movies.report.movie import as_json, finding_lines, step_note, surface_lines
 from movies.draw.svg import Highlight

@@ -11,7 +11,8 @@ same facts.
 
 from __future__ import annotations
 
-from movies.checker.replay import REFUTED, VERDICT_MEANING, CheckResult, ribbon_shown
+from movies.checker.judge import ribbon_shown
+from movies.checker.result import REFUTED, VERDICT_MEANING, CheckResult
 from movies.wording import plural
 
 

@@ -3,7 +3,8 @@
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from movies.checker.replay import VERDICT_MEANING, check_movie
+from movies.checker.replay import check_movie
+from movies.checker.result import VERDICT_MEANING
 from movies.report.movie import as_json, as_text
 from movies.language.movie import parse_movie
 
