@@ -8,7 +8,8 @@ once in a fresh process for each tree, alternating which tree goes first, so tha
 drift hits both alike; the report gives the median time per workload for each tree and the
 ratio of the medians (now / before). Workloads, each through functions both trees have:
 
-- homology: s over Q of a fixed spread of 10- to 12-crossing table knots, and of T(5, 6);
+- homology: s over Q of a fixed spread of 10- to 12-crossing table knots, and of three torus
+  knots of 20 to 24 crossings;
 - checker: reading and checking every bundled example movie, bounds included, and the
   40-step random movies of the checker benchmark.
 """
@@ -43,7 +44,8 @@ from draw.randomized import random_movie
 which = sys.argv[2]
 started = time.perf_counter()
 if which == "homology":
-    for name in ("10_132", "10_145", "11a_1", "11n_34", "12a_100", "12n_242", "torus(5, 6)"):
+    for name in ("10_132", "10_145", "11a_1", "11n_34", "12a_100", "12n_242", "12a_1000", "12n_800",
+                 "torus(5, 6)", "torus(4, 7)", "torus(3, 10)"):
         rasmussen_s(parse_diagram(name))
 elif which == "examples":
     for path in sorted((tests.parent / "examples" / "movies").glob("*.movie")):
