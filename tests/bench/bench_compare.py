@@ -10,8 +10,8 @@ ratio of the medians (now / before). Workloads, each through functions both tree
 
 - homology: s over Q of a fixed spread of 10- to 12-crossing table knots, and of three torus
   knots of 20 to 24 crossings;
-- checker: reading and checking every bundled example movie, bounds included, and the
-  40-step random movies of the checker benchmark.
+- checker: reading and checking every example movie of the earlier commit (the same movies for
+  both trees), bounds included, and the 40-step random movies of the checker benchmark.
 """
 
 from __future__ import annotations
@@ -48,7 +48,7 @@ if which == "homology":
                  "torus(5, 6)", "torus(4, 7)", "torus(3, 10)"):
         rasmussen_s(parse_diagram(name))
 elif which == "examples":
-    for path in sorted((tests.parent / "examples" / "movies").glob("*.movie")):
+    for path in sorted(Path(sys.argv[3]).glob("*.movie")):
         check_movie(parse_movie(path.read_text()))
 else:
     for seed in (1, 2, 3):
@@ -59,9 +59,9 @@ print(json.dumps(time.perf_counter() - started))
 WORKLOADS = ("homology", "examples", "random movies")
 
 
-def run(tree: Path, which: str) -> float:
+def run(tree: Path, which: str, examples: Path) -> float:
     env = dict(os.environ, PYTHONPATH=str(tree))
-    out = subprocess.run([sys.executable, "-c", WORKLOAD, str(tree / "tests"), which], env=env, cwd=tree,
+    out = subprocess.run([sys.executable, "-c", WORKLOAD, str(tree / "tests"), which, str(examples)], env=env, cwd=tree,
                          capture_output=True, text=True, check=True)
     return json.loads(out.stdout.strip().splitlines()[-1])
 
@@ -83,7 +83,8 @@ def main() -> int:
                     order.reverse()
                 for which in WORKLOADS:
                     for label, tree in order:
-                        times[(label, which)].append(run(tree, which))
+                        # both trees check the same movies: the earlier commit's examples
+                        times[(label, which)].append(run(tree, which, before / "examples" / "movies"))
                 print(f"round {index + 1} of {args.rounds} done", file=sys.stderr)
         finally:
             subprocess.run(["git", "-C", str(ROOT), "worktree", "remove", "--force", str(before)], check=False)
