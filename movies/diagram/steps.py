@@ -58,9 +58,13 @@ FIELDS = {
 #: every kind of move step
 KINDS = tuple(FIELDS)
 #: fields a record may leave out
-_OPTIONAL = {"kink", "names", "start_face"} | {"band:face"}
+_OPTIONAL = {"kink", "names", "start_face"} | {"band:face", "birth:counterclockwise"}
 _ALL = ("edge", "hand", "sign", "crossing", "kink", "over", "under", "face", "first", "second",
         "counterclockwise", "component", "edges", "turns", "start_face", "names")
+#: per kind, the fields it must have and the fields it must not
+_REQUIRED = {kind: tuple(name for name in fields if name not in _OPTIONAL and f"{kind}:{name}" not in _OPTIONAL)
+             for kind, fields in FIELDS.items()}
+_FOREIGN = {kind: tuple(name for name in _ALL if name not in fields) for kind, fields in FIELDS.items()}
 
 
 @dataclass(frozen=True, order=True)
@@ -98,18 +102,18 @@ class MoveRecord:
     names: NewNames | None = None
 
     def __post_init__(self) -> None:
-        if self.kind not in FIELDS:
-            raise MoveError(f"a move is one of {', '.join(KINDS)}, not {self.kind!r}")
-        if self.kind == "birth" and self.counterclockwise is None:
+        kind = self.kind
+        if kind not in FIELDS:
+            raise MoveError(f"a move is one of {', '.join(KINDS)}, not {kind!r}")
+        values = self.__dict__  # the search makes many records: plain lookups, no getattr
+        if kind == "birth" and values["counterclockwise"] is None:
             object.__setattr__(self, "counterclockwise", True)  # circles are born counterclockwise
-        needed = FIELDS[self.kind]
-        for name in _ALL:
-            value = getattr(self, name)
-            optional = name in _OPTIONAL or f"{self.kind}:{name}" in _OPTIONAL
-            if name in needed and value is None and not optional:
-                raise MoveError(f"a {self.kind} move needs {name}")
-            if name not in needed and value is not None:
-                raise MoveError(f"a {self.kind} move takes {', '.join(needed)}, not {name}")
+        for name in _REQUIRED[kind]:
+            if values[name] is None:
+                raise MoveError(f"a {kind} move needs {name}")
+        for name in _FOREIGN[kind]:
+            if values[name] is not None:
+                raise MoveError(f"a {kind} move takes {', '.join(FIELDS[kind])}, not {name}")
 
     def arguments(self) -> dict[str, object]:
         """The keyword arguments of the move function, in its order.
