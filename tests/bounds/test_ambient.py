@@ -183,3 +183,18 @@ def test_mixed_hands_give_no_bound():
     bounds, notes = applicable_bounds(place, {"start": {"Q": 2}, "end": {"Q": 1}},
                                       {"start": {"Q": -2}, "end": {"Q": 1}}, 1, True, False)
     assert bounds == [] and "indefinite" in notes[0]
+
+
+def test_mirrored_and_read_backwards_the_names_swap_and_undo(movies_with_twists):
+    for name, steps in movies_with_twists[:6]:
+        result = check_movie(parse_movie(_text(name, steps)))
+        mirrored = check_movie(parse_movie(_text(name, steps, mirrored=True)))
+        # the mirrored movie read backwards: the knot's mirror bounds the surface in the swapped manifold
+        back = _reversed(mirrored.transitions)
+        surface = surface_of([], back)
+        both = ambient(True, False, surface.blowups, surface.orientable)
+        assert _parts(both.name) == _parts(_swapped(result.ambient().name)) and both.square == -result.ambient().square
+        # and undoing both (read forwards again, mirrored again) names the original
+        again = surface_of(mirrored.movie.start.components, _reversed(back))
+        undone = ambient(False, True, again.blowups, again.orientable)
+        assert _swapped(undone.name) == result.ambient().name
