@@ -113,7 +113,19 @@ def surface_bounds(start: Diagram, end: Diagram, surface: Surface | None) -> Bou
     """The s-inequalities and genus bounds for the surface of a movie from ``start`` to ``end``.
 
     Parameters: the first and the last frame; the surface (None for a movie that stopped at an
-    invalid step). Returns a :class:`BoundsReport`.
+    invalid step). Returns a :class:`BoundsReport`: s of both ends, the inequalities that hold
+    where the surface lives (:mod:`movies.bounds.ambient`), 4-genus bounds of knot ends, and the
+    least-genus statements an equality gives.
+
+    >>> from movies.diagram.constructors import empty, unknot
+    >>> from movies.surface.tracker import Transition, surface_of
+    >>> disk = surface_of([1], [Transition("death", ended=(1,), deaths=1)])
+    >>> [(b.lhs, b.rhs, b.holds) for b in surface_bounds(unknot(), empty(), disk).bounds]
+    [(1, 1, True), (1, 1, True), (1, 1, True), (1, 1, True)]
+
+    References
+    ----------
+    A. Beliakova, S. Wehrli (2008): s bounds the Euler characteristic of oriented cobordisms.
     """
     report = BoundsReport()
     if surface is None:

@@ -62,6 +62,10 @@ def judge(result: CheckResult, expectations: list[Expectation], with_bounds: boo
     CheckResult
         The same result with checkpoints, and, when every step was replayed, the surface, the
         claims and the bounds.
+
+    >>> from movies.checker.replay import check_movie
+    >>> check_movie("start unknot\\ndeath 1\\nsurface genus 1").findings[0].message
+    'the surface is claimed to be genus 1'
     """
     judging = _Judging(result)
     for expectation in expectations:

@@ -58,7 +58,11 @@ def _limit_option(parser: argparse.ArgumentParser) -> None:
 
 
 def build_parser() -> argparse.ArgumentParser:
-    """The argument parser of the ``movies`` command."""
+    """The argument parser of the ``movies`` command.
+
+    >>> build_parser().parse_args(["check", "a.movie", "--json"]).json
+    True
+    """
     parser = _Parser(
         prog="movies",
         description="Check surfaces drawn as movies of link diagrams, and compute invariants of links.",
@@ -203,7 +207,12 @@ def _seconds(text: str | None) -> float:
 
 
 def diagram_from_arguments(args: argparse.Namespace):
-    """The diagram named by SPEC, --pd or --braid (exactly one of them)."""
+    """The diagram named by SPEC, --pd, --braid or --file (exactly one of them), with its label.
+
+    >>> label, d = diagram_from_arguments(build_parser().parse_args(["invariants", "torus(2, 3)"]))
+    >>> label, d.crossing_count()
+    ('torus(2, 3)', 3)
+    """
     given = [name for name in ("spec", "pd", "braid", "file") if getattr(args, name) is not None]
     if len(given) != 1:
         raise InputError("give exactly one diagram: SPEC, --pd JSON, --braid JSON or --file PATH")

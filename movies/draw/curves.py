@@ -214,6 +214,12 @@ def strands(diagram: Diagram, lay: Layout) -> Strands:
     """The smoothest curves among :data:`SETTINGS` that cross only at the crossings.
 
     Parameters: the diagram and its layout. Returns :class:`Strands`.
+
+    >>> from movies.diagram.constructors import from_braid
+    >>> from movies.draw.layout import layout
+    >>> d = from_braid([1, 1, 1])
+    >>> stray_crossings(d, strands(d, layout(d)))
+    0
     """
     result = None
     for straight, smooth in SETTINGS:

@@ -174,7 +174,16 @@ def diagram_svg(diagram: Diagram, labels: bool = False, highlight: Highlight | d
 
 def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highlight: Highlight,
            size: int, title: str | None) -> str:
-    """The SVG text for a diagram whose layout and curves are already made (see :func:`diagram_svg`)."""
+    """The SVG text for a diagram whose layout and curves are already made (see :func:`diagram_svg`).
+
+    >>> from movies.diagram.constructors import unknot
+    >>> from movies.draw.curves import strands
+    >>> from movies.draw.layout import layout
+    >>> d = unknot()
+    >>> lay = layout(d)
+    >>> render(d, lay, strands(d, lay), False, Highlight(), 200, None).startswith("<svg")
+    True
+    """
     xmin, ymin, xmax, ymax = lay.bounds
     pad = 14.0
     k = (size - 2 * pad) / (xmax - xmin)

@@ -295,7 +295,12 @@ def jones_polynomial_pd(pd, writhe: int, loops: int = 0) -> LaurentPolynomial:
 
 
 def kauffman_bracket(diagram) -> LaurentPolynomial:
-    """The Kauffman bracket of a Diagram (its PD code and its crossingless circles)."""
+    """The Kauffman bracket of a Diagram (its PD code and its crossingless circles).
+
+    >>> from movies.diagram.constructors import unlink
+    >>> print(kauffman_bracket(unlink(2)))
+    -A^(-2) - A^2
+    """
     return kauffman_bracket_pd(diagram.pd_code(), loops=diagram.loop_count())
 
 

@@ -40,7 +40,11 @@ def grammar_text(name: str) -> str:
 
 
 def position(text: str, offset: int) -> tuple[int, int]:
-    """Line and column (from 1) of a character offset."""
+    """Line and column (from 1) of a character offset.
+
+    >>> position("start unknot\\nband 1 2", 13)
+    (2, 1)
+    """
     line = text.count("\n", 0, offset) + 1
     return line, offset - (text.rfind("\n", 0, offset) + 1) + 1
 
@@ -76,7 +80,12 @@ def check_digits(digits: str, text: str, line: int, column: int, what: str = "")
 
 
 def read_int(token: Token, text: str) -> int:
-    """The integer a token holds, refused (at the token) when it has too many digits."""
+    """The integer a token holds, refused (at the token) when it has too many digits.
+
+    >>> from lark import Token
+    >>> read_int(Token("INT", "42", line=1, column=6), "band 42 7")
+    42
+    """
     check_digits(str(token), text, token.line, token.column)
     return int(token)
 

@@ -127,13 +127,21 @@ class Movie:
 
 
 def movie_grammar() -> str:
-    """The text of ``movie.lark`` (from the installed package, or the checkout's grammar folder)."""
+    """The text of ``movie.lark`` (from the installed package, or the checkout's grammar folder).
+
+    >>> movie_grammar().startswith("// A movie: one statement per line.")
+    True
+    """
     return grammar_text("movie.lark")
 
 
 @functools.lru_cache(maxsize=1)
 def movie_parser() -> Lark:
-    """The LALR parser of the movie language, built once."""
+    """The LALR parser of the movie language, built once.
+
+    >>> movie_parser().parse("start unknot\\ndeath 1\\n").children[1].data
+    Token('RULE', 'death')
+    """
     return Lark(movie_grammar(), parser="lalr", propagate_positions=True, maybe_placeholders=True)
 
 
