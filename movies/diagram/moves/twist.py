@@ -116,39 +116,7 @@ def twist(
         raise MoveError(
             f"turns is a nonzero integer (+1 a right-handed full twist, -1 a left-handed one), not {turns!r}"
         )
-    for edge in edges:
-        _check_edge(diagram, edge)
-    repeated = sorted({edge for edge in edges if edges.count(edge) > 1})
-    if repeated:
-        raise MoveError(
-            f"the gate crosses edge {repeated[0]} more than once (edges {edges}); each edge at most once"
-        )
-    beside = [int(face) for face in diagram.faces_beside(edges[0])]
-    if start_face is not None:
-        diagram.face(start_face)
-        if start_face not in beside:
-            raise MoveError(
-                f"start_face {start_face} does not border edge {edges[0]} "
-                f"(it lies between faces {beside[0]} and {beside[1]})"
-            )
-        walk = _gate_walk(diagram, edges, start_face)
-        if isinstance(walk, str):
-            raise MoveError(f"no gate across edges {edges} from face {start_face}: {walk}")
-    else:
-        walks = {face: _gate_walk(diagram, edges, face) for face in beside}
-        fits = sorted(face for face in beside if not isinstance(walks[face], str))
-        if len(fits) == 2:
-            raise MoveError(
-                f"a gate across edges {edges} can start in face {fits[0]} or in face {fits[1]} "
-                "(the two sides of the first edge); say which with start_face"
-            )
-        if not fits:
-            raise MoveError(
-                f"no gate crosses edges {edges} in this order: starting in face {beside[0]}, "
-                f"{walks[beside[0]]}; starting in face {beside[1]}, {walks[beside[1]]}"
-            )
-        walk = walks[fits[0]]
-    faces, directions = walk  # type: ignore[misc]
+    faces, directions = gate_path(diagram, edges, start_face)
     k = len(edges)
     word = _full_twist_word(k, turns) if k > 1 else []
     result = diagram
@@ -221,6 +189,74 @@ def _full_twist_word(strands: int, turns: int) -> list[int]:
     return step * (strands * abs(turns))
 
 
+def gate_path(diagram: Diagram, edges: Sequence[int], start_face: int | None = None) -> tuple[list[int], list[int]]:
+    """The faces a gate across ``edges`` runs through, and the direction of each strand it crosses.
+
+    Parameters: the diagram; the edges the gate crosses, in order; the face it starts in, needed
+    only when both sides of the first edge would do. Returns (faces f_0 .. f_k, directions): +1
+    for a strand crossing the gate going up (from its right to its left), −1 going down. Raises
+    :class:`~movies.errors.MoveError` saying why there is no such gate: no edges, an edge not in
+    the diagram or crossed twice, a start face not beside the first edge, a step into a face the
+    next edge does not border, a gate that would cross itself, or two possible start faces.
+
+    >>> from movies.diagram.constructors import unlink
+    >>> gate_path(unlink(2), [1, 2])
+    ([1, 2, 3], [1, -1])
+    """
+    try:
+        edges = list(edges)
+    except TypeError:
+        raise MoveError(f"the edges of a gate are a list of edge names, not {edges!r}") from None
+    if not edges:
+        raise MoveError("a gate needs at least one edge to cross")
+    for edge in edges:
+        _check_edge(diagram, edge)
+    repeated = sorted({edge for edge in edges if edges.count(edge) > 1})
+    if repeated:
+        raise MoveError(
+            f"the gate crosses edge {repeated[0]} more than once (edges {edges}); each edge at most once"
+        )
+    beside = [int(face) for face in diagram.faces_beside(edges[0])]
+    if start_face is not None:
+        diagram.face(start_face)
+        if start_face not in beside:
+            raise MoveError(
+                f"start_face {start_face} does not border edge {edges[0]} "
+                f"(it lies between faces {beside[0]} and {beside[1]})"
+            )
+        walk = _gate_walk(diagram, edges, start_face)
+        if isinstance(walk, str):
+            raise MoveError(f"no gate across edges {edges} from face {start_face}: {walk}")
+        return walk
+    walks = {face: _gate_walk(diagram, edges, face) for face in beside}
+    fits = sorted(face for face in beside if not isinstance(walks[face], str))
+    if len(fits) == 2:
+        raise MoveError(
+            f"a gate across edges {edges} can start in face {fits[0]} or in face {fits[1]} "
+            "(the two sides of the first edge); say which with start_face"
+        )
+    if not fits:
+        raise MoveError(
+            f"no gate crosses edges {edges} in this order: starting in face {beside[0]}, "
+            f"{walks[beside[0]]}; starting in face {beside[1]}, {walks[beside[1]]}"
+        )
+    return walks[fits[0]]  # type: ignore[return-value]
+
+
+def gate_arcs(edges: Sequence[int], faces: Sequence[int], directions: Sequence[int]) -> dict[int, list[tuple[Side, Side]]]:
+    """The arcs a gate draws inside each face it passes through (its two end stubs left out).
+
+    >>> gate_arcs([1, 2], [1, 2, 3], [1, -1])
+    {2: [(1R, 2R)]}
+    """
+    arcs: dict[int, list[tuple[Side, Side]]] = {}
+    for i in range(1, len(edges)):
+        entry = Side(edges[i - 1], "R" if directions[i - 1] > 0 else "L")
+        leave = Side(edges[i], "L" if directions[i] > 0 else "R")
+        arcs.setdefault(faces[i], []).append((entry, leave))
+    return arcs
+
+
 def _gate_walk(diagram: Diagram, edges: Sequence[int], start: int) -> tuple[list[int], list[int]] | str:
     """The faces and directions of the gate starting in face ``start``, or why there is none.
 
@@ -249,21 +285,29 @@ def _gate_walk(diagram: Diagram, edges: Sequence[int], start: int) -> tuple[list
 
 def _gate_crosses_itself(diagram: Diagram, edges: Sequence[int], faces: list[int],
                          directions: list[int]) -> str | None:
-    """Why the gate's arcs inside some face cannot be drawn apart, or None when they can.
+    """Why the gate's arcs inside some face cannot be drawn apart, or None when they can."""
+    face = arcs_tangled(diagram, gate_arcs(edges, faces, directions))
+    if face is None:
+        return None
+    described = ", ".join(f"edge {a.edge} to edge {b.edge}" for a, b in gate_arcs(edges, faces, directions)[face])
+    return f"the gate would cross itself in face {face}: its arcs there ({described}) cannot be drawn apart"
 
-    Inside face f_i (0 < i < k) the gate is an arc from the side of ``edges[i-1]`` facing it to
-    the side of ``edges[i]`` facing it; the two ends of the gate are short stubs that never get
-    in the way. The arcs in one face can be drawn disjointly exactly when the map they make
-    with the face's boundary cycles (cut at the arcs' ends) has Euler characteristic 2 on each
-    of its connected parts, each arc leaving the boundary into the face: counterclockwise at
-    an end come the boundary ahead (the face on its left), the arc, the boundary behind.
-    Separate parts can then be nested in any face of one another, as the face's region allows.
+
+def arcs_tangled(diagram: Diagram, arcs: dict[int, list[tuple[Side, Side]]]) -> int | None:
+    """The first face whose arcs cannot be drawn apart, or None when every face's can.
+
+    Each arc runs inside its face from one side of the face's boundary to another (the arcs of
+    one gate, or of several gates together). The arcs in one face can be drawn disjointly exactly
+    when the map they make with the face's boundary cycles (cut at the arcs' ends) has Euler
+    characteristic 2 on each of its connected parts, each arc leaving the boundary into the face:
+    counterclockwise at an end come the boundary ahead (the face on its left), the arc, the
+    boundary behind. Separate parts can then be nested in any face of one another, as the face's
+    region allows.
+
+    >>> from movies.diagram.constructors import unlink
+    >>> arcs_tangled(unlink(2), {2: [(Side(1, "R"), Side(2, "R"))]}) is None
+    True
     """
-    arcs: dict[int, list[tuple[Side, Side]]] = {}
-    for i in range(1, len(edges)):
-        entry = Side(edges[i - 1], "R" if directions[i - 1] > 0 else "L")
-        leave = Side(edges[i], "L" if directions[i] > 0 else "R")
-        arcs.setdefault(faces[i], []).append((entry, leave))
     for face, pairs in sorted(arcs.items()):
         if len(pairs) < 2:
             continue  # one arc always fits
@@ -308,7 +352,5 @@ def _gate_crosses_itself(diagram: Diagram, edges: Sequence[int], faces: list[int
         for orbit in orbits({dart: turn[partner[dart]] for dart in range(len(partner))}):
             euler[find(point[orbit[0]])] += 1  # faces
         if any(value != 2 for value in euler.values()):
-            described = ", ".join(f"edge {a.edge} to edge {b.edge}" for a, b in pairs)
-            return (f"the gate would cross itself in face {face}: its arcs there ({described}) "
-                    "cannot be drawn apart")
+            return face
     return None
