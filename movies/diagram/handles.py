@@ -1,0 +1,193 @@
+"""Links in connected sums of S¹×S², drawn as link diagrams with handles.
+
+M_r = #ʳ S¹×S² is 0-surgery on an r-component unlink; isotope each unknot Uᵢ to a small circle
+around a bundle of strands, and in the diagram it is a *gate*: a simple path across the diagram
+that crosses each strand of the bundle once (the same object as the gate of a twist step). The
+disk Uᵢ bounds, capped off, is the 2-sphere of the i-th summand; the strands through the gate
+are where the link meets it. A :class:`HandleDiagram` is a diagram with its gates.
+
+For an orientation, aᵢ is the algebraic number of strands through gate i (one way minus the
+other): (a₁, …, a_r) is the class of the link in H₁(M_r) = Zʳ. The link is *null-homologous*
+when every aᵢ = 0, and *2-divisible* when every bundle has an even number of strands.
+
+``L(k)`` (:func:`twisted`) is the link in S³ with k full twists inserted at every gate
+(right-handed for k > 0): −1/k surgery on the unlink, which is S³ again (the Rolfsen twist).
+
+>>> h = fibers(1, 1)  # two circles through one handle, one each way
+>>> h.homology_class(), h.null_homologous(), h.two_divisible()
+((0,), True, True)
+>>> twisted(h, 2).crossing_count()  # T(2, 4) with one strand reversed
+4
+
+References
+----------
+C. Manolescu, M. Marengon, S. Sarkar, M. Willis, "A generalization of Rasmussen's invariant,
+with applications to surfaces in some four-manifolds" (2019): the setting. D. Rolfsen, "Knots
+and Links" (1976): the twist.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from itertools import product
+from typing import Sequence
+
+from movies.diagram.constructors import from_braid, reverse
+from movies.diagram.model import Diagram, Side
+from movies.diagram.moves import twist
+from movies.diagram.moves.twist import arcs_tangled, gate_arcs, gate_path
+from movies.errors import DiagramError, MoveError
+
+__all__ = ["Gate", "HandleDiagram", "handle_diagram", "fibers", "twisted"]
+
+#: how many orientations the search for null-homologous ones tries at most (2^components)
+MOST_ORIENTATIONS = 1 << 16
+
+
+@dataclass(frozen=True)
+class Gate:
+    """One handle: the edges its gate crosses, in order, and the side of the first edge it starts on.
+
+    ``hand`` is ``"L"`` or ``"R"``: the gate starts in the face on that side of ``edges[0]``.
+    Sides, unlike face names, survive the moves at other gates, so a gate stays located.
+    """
+
+    edges: tuple[int, ...]
+    hand: str
+
+    def start_face(self, diagram: Diagram) -> int:
+        return diagram.side_face[Side(self.edges[0], self.hand)]
+
+
+@dataclass(frozen=True)
+class HandleDiagram:
+    """A link diagram with r handles (gates): a link in #ʳ S¹×S², with its orientation.
+
+    Build one with :func:`handle_diagram`, which checks the gates.
+    """
+
+    diagram: Diagram
+    gates: tuple[Gate, ...]
+    directions: tuple[tuple[int, ...], ...]  # per gate: +1 or -1 for each strand, in the gate's order
+
+    def homology_class(self) -> tuple[int, ...]:
+        """(a₁, …, a_r): the strands through each gate, counted with their directions."""
+        return tuple(sum(d) for d in self.directions)
+
+    def null_homologous(self) -> bool:
+        return not any(self.homology_class())
+
+    def two_divisible(self) -> bool:
+        """Every bundle has an even number of strands (whatever the orientation)."""
+        return all(len(gate.edges) % 2 == 0 for gate in self.gates)
+
+    def null_homologous_orientations(self) -> list[tuple[int, ...]]:
+        """Every set of components whose reversal makes the link null-homologous (() = as given).
+
+        Both an orientation and its total reversal are listed. Raises
+        :class:`~movies.errors.DiagramError` past :data:`MOST_ORIENTATIONS`.
+
+        >>> fibers(2, 0).null_homologous_orientations()
+        [(1,), (2,)]
+        """
+        names = sorted(self.diagram.components)
+        if 1 << len(names) > MOST_ORIENTATIONS:
+            raise DiagramError(f"{len(names)} components have {2 ** len(names)} orientations; "
+                               f"at most {MOST_ORIENTATIONS} are tried")
+        of = [[self.diagram.component_of(edge) for edge in gate.edges] for gate in self.gates]
+        found = []
+        for flips in product((False, True), repeat=len(names)):
+            reversed_ = {name for name, flip in zip(names, flips) if flip}
+            if all(sum(-d if k in reversed_ else d for d, k in zip(directions, components)) == 0
+                   for directions, components in zip(self.directions, of)):
+                found.append(tuple(sorted(reversed_)))
+        return sorted(found, key=lambda s: (len(s), s))
+
+
+def handle_diagram(diagram: Diagram, gates: Sequence[tuple[Sequence[int], int | None]]) -> HandleDiagram:
+    """A diagram with handles, each gate given as (edges crossed in order, start face or None).
+
+    Every gate is checked as a twist's gate is (the edges exist, each crossed once, each step
+    into a face the next edge borders, the path simple; the start face is needed only when both
+    sides of the first edge would do), and the gates together: no edge crossed by two gates, and
+    no two gates crossing each other in a face.
+
+    Raises :class:`~movies.errors.MoveError` naming the handle and the reason.
+
+    >>> from movies.diagram.constructors import unlink
+    >>> handle_diagram(unlink(2), [([1, 2], None)]).homology_class()
+    (0,)
+    >>> handle_diagram(unlink(2), [([1, 2], None), ([2], 3)])
+    Traceback (most recent call last):
+    ...
+    movies.errors.MoveError: handles 1 and 2 both cross edge 2; a strand between two handles needs an edge of its own for each
+    """
+    if not gates:
+        raise MoveError("a handle diagram needs at least one handle")
+    checked, paths = [], []
+    for index, (edges, start_face) in enumerate(gates, start=1):
+        edges = tuple(edges)
+        try:
+            faces, directions = gate_path(diagram, edges, start_face)
+        except MoveError as err:
+            raise MoveError(f"handle {index}: {err}") from None
+        left, _ = diagram.faces_beside(edges[0])
+        checked.append(Gate(edges, "L" if faces[0] == left else "R"))
+        paths.append((edges, faces, tuple(directions)))
+    owner: dict[int, int] = {}
+    for index, gate in enumerate(checked, start=1):
+        for edge in gate.edges:
+            if edge in owner:
+                raise MoveError(f"handles {owner[edge]} and {index} both cross edge {edge}; a strand between "
+                                "two handles needs an edge of its own for each")
+            owner[edge] = index
+    arcs: dict[int, list[tuple[Side, Side]]] = {}
+    whose: dict[int, set[int]] = {}
+    for index, path in enumerate(paths, start=1):
+        for face, pairs in gate_arcs(*path).items():
+            arcs.setdefault(face, []).extend(pairs)
+            whose.setdefault(face, set()).add(index)
+    tangled = arcs_tangled(diagram, arcs)
+    if tangled is not None:
+        crossing = sorted(whose[tangled])
+        raise MoveError(f"handles {' and '.join(map(str, crossing))} cross each other in face {tangled}: "
+                        "their gates cannot be drawn apart there")
+    return HandleDiagram(diagram, tuple(checked), tuple(path[2] for path in paths))
+
+
+def fibers(p: int, q: int) -> HandleDiagram:
+    """F(p, q): p fibers of one handle running one way and q the other (p + q nested circles).
+
+    Each fiber S¹×pt is a small circle through the gate once; L(k) of F(p, q) is the torus link
+    T(p + q, (p + q)k) with q strands reversed.
+
+    >>> fibers(2, 1).homology_class()
+    (1,)
+    """
+    if p < 0 or q < 0 or p + q == 0:
+        raise DiagramError(f"fibers need p, q >= 0 and at least one circle, not ({p}, {q})")
+    circles = from_braid([], strands=p + q)  # nested circles 1, ..., p + q, all one way
+    if q:
+        circles = reverse(circles, range(p + 1, p + q + 1))
+    # face 1 is inside the innermost circle: the gate runs from there out, crossing each once
+    return handle_diagram(circles, [(list(range(1, p + q + 1)), 1)])
+
+
+def twisted(link: HandleDiagram, k: int | Sequence[int]) -> Diagram:
+    """L(k): the diagram in S³ with k full twists at every gate (or kᵢ at gate i).
+
+    Right-handed for k > 0, left-handed for k < 0, nothing for 0 (L(0) is the diagram itself).
+    The gates share no edge, so the twists are inserted one after another, each found again by
+    the side of its first edge.
+
+    >>> twisted(fibers(3, 0), 1).linking_matrix()  # T(3, 3): every pair links once
+    [[0, 1, 1], [1, 0, 1], [1, 1, 0]]
+    """
+    turns = [k] * len(link.gates) if isinstance(k, int) else list(k)
+    if len(turns) != len(link.gates):
+        raise DiagramError(f"{len(turns)} numbers of twists for {len(link.gates)} handles")
+    diagram = link.diagram
+    for gate, amount in zip(link.gates, turns):
+        if amount:
+            diagram = twist(diagram, gate.edges, amount, gate.start_face(diagram)).diagram
+    return diagram
