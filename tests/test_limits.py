@@ -286,7 +286,7 @@ def test_a_long_chain_of_sums_counts_as_nesting():
     text = " # ".join(["3_1"] * 300)
     with pytest.raises(LocatedLimitError) as info:
         parse_diagram(text)
-    assert info.value.reason == ("diagrams nest 101 deep here (each '#', '+', mirror and reverse is one level); "
+    assert info.value.reason == ("diagrams nest 101 deep here (each '#', '+', mirror, reverse, twisted and a list of handles is one level); "
                                  "the limit is 100 (raise it with --limit depth=N)")
     assert parse_diagram(" # ".join(["3_1"] * 101)).crossing_count() == 303
 

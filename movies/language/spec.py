@@ -51,6 +51,7 @@ from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput
 
 from movies import limits
 from movies.diagram import constructors
+from movies.diagram.handles import HandleDiagram, handle_diagram, twisted
 from movies.diagram.model import Diagram
 from movies.diagram.pd import from_pd
 from movies.diagram.tables import canonical_name, lookup
@@ -89,10 +90,12 @@ __all__ = [
     "diagram_grammar",
     "diagram_parser",
     "parse_diagram",
+    "parse_handle_diagram",
 ]
 
 #: the words of the notation
-KEYWORDS = ("unknot", "empty", "unlink", "braid", "torus", "pd", "mirror", "reverse")
+KEYWORDS = ("unknot", "empty", "unlink", "braid", "torus", "pd", "mirror", "reverse", "twisted", "with", "handle",
+            "across", "and", "from", "face")
 
 
 # ---------------------------------------------------------------------- the parser
@@ -142,6 +145,37 @@ def parse_diagram(text: str) -> Diagram:
     """
     if not isinstance(text, str):
         raise InputError(f"a diagram is written as text, not {type(text).__name__}")
+    result = _read(text)
+    if isinstance(result, HandleDiagram):
+        raise SpecDiagramError("a diagram with handles is a link in a connected sum of S^1 x S^2; where a "
+                               "link in S^3 is wanted, write twisted(DIAGRAM with handle ..., k)", text, 1, 1)
+    return result
+
+
+def parse_handle_diagram(text: str) -> HandleDiagram:
+    """The link in #ʳ S¹×S² that ``text`` describes: a diagram ``with handle across E1 E2 ...``.
+
+    Each handle is a gate, as a twist step's: the edges it crosses in order, and ``from face F``
+    where it starts when both sides of the first edge would do; more handles are joined by
+    ``and``. Raises the errors of :func:`parse_diagram`, and a :class:`SpecDiagramError` for a
+    diagram without handles or gates that do not fit (naming the handle and the reason).
+
+    >>> h = parse_handle_diagram("unlink(2) with handle across 1 2")
+    >>> h.homology_class(), h.null_homologous()
+    ((0,), True)
+    >>> parse_diagram("twisted(unlink(2) with handle across 1 2, 1)").crossing_count()
+    2
+    """
+    if not isinstance(text, str):
+        raise InputError(f"a diagram is written as text, not {type(text).__name__}")
+    result = _read(text)
+    if not isinstance(result, HandleDiagram):
+        raise SpecDiagramError("this diagram has no handles: write DIAGRAM with handle across E1 E2 ...", text, 1, 1)
+    return result
+
+
+def _read(text: str):
+    """The diagram or handle diagram ``text`` describes, every limit checked before it is built."""
     check_nesting(text)
     try:
         tree = diagram_parser().parse(text)
@@ -153,10 +187,15 @@ def parse_diagram(text: str) -> Diagram:
     return _Builder(text).build(root)
 
 
+#: how an error names the kind of node a diagram with handles cannot be part of
+_ROLE = {"union": "a disjoint union", "connected_sum": "a connected sum", "mirror": "mirror(...)",
+         "reverse": "reverse(...)", "with_handles": "another list of handles"}
+
 #: what counts as one level of nesting, beside brackets
-_LEVELS = " (each '#', '+', mirror and reverse is one level)"
+_LEVELS = " (each '#', '+', mirror, reverse, twisted and a list of handles is one level)"
 #: the parts of the tree that hold diagrams, by the kind of node
-_PARTS = {"mirror": (0,), "reverse": (0,), "union": (0, 2), "connected_sum": (0, 2)}
+_PARTS = {"mirror": (0,), "reverse": (0,), "union": (0, 2), "connected_sum": (0, 2), "with_handles": (0,),
+          "twisted": (0,)}
 
 
 def _check_tree(text: str, root) -> None:
@@ -236,6 +275,16 @@ def _check_sizes(text: str, root) -> None:
                 if value > limits.current()[name]:
                     raise LocatedLimitError(limits.exceeds(name, f"the {what} would have {value} {name}"),
                                             text, node.meta.line, node.meta.column, name)
+        elif node.data == "twisted":
+            (crossings, components), = parts
+            inner, turns = node.children[0], node.children[1:]
+            bundles = ([len([t for t in h.children if isinstance(t, Token)]) - (h.children[-1] is not None)
+                        for h in inner.children[1:]] if inner.data == "with_handles" else [])
+            amounts = [abs(int(t)) for t in turns] * (len(bundles) if len(turns) == 1 else 1)
+            size = (crossings + sum(k * n * (n - 1) for k, n in zip(amounts, bundles)), components)
+            if size[0] > limits.current()["crossings"]:
+                raise LocatedLimitError(limits.exceeds("crossings", f"twisted(...) would have {size[0]} crossings"),
+                                        text, node.meta.line, node.meta.column, "crossings")
         else:
             size = parts[0] if parts else _leaf_size(node)
         sizes[id(node)] = size
@@ -472,6 +521,10 @@ class _Builder:
 
     def make(self, node, parts: list[Diagram]) -> Diagram:
         method = getattr(self, f"_{node.data}")
+        if node.data != "twisted" and any(isinstance(part, HandleDiagram) for part in parts):
+            raise SpecDiagramError("a diagram with handles stands alone or inside twisted(...); it cannot be "
+                                   f"part of {_ROLE.get(node.data, node.data)}", self.text, node.meta.line,
+                                   node.meta.column)
         try:
             return method(node, *parts) if parts else method(node, *node.children)
         except (LocatedError, InternalError):
@@ -527,6 +580,24 @@ class _Builder:
                     self.text, crossing.meta.line, crossing.meta.column)
             rows.append([self.number(label) for label in crossing.children])
         return from_pd(rows)
+
+    def _with_handles(self, node, diagram: Diagram) -> HandleDiagram:
+        gates = []
+        for handle in node.children[1:]:
+            *edges, face = handle.children
+            gates.append(([self.number(edge) for edge in edges], None if face is None else self.number(face)))
+        return handle_diagram(diagram, gates)
+
+    def _twisted(self, node, inner) -> Diagram:
+        turns = [self.number(token) for token in node.children[1:]]
+        if not isinstance(inner, HandleDiagram):
+            raise SpecDiagramError("twisted(...) takes a diagram with handles, as in "
+                                   "twisted(3_1 with handle across 1 5, 1)", self.text, node.meta.line, node.meta.column)
+        if len(turns) not in (1, len(inner.gates)):
+            raise SpecDiagramError(f"twisted(...) takes one number of twists, or one for each of the "
+                                   f"{len(inner.gates)} handles, not {len(turns)}", self.text, node.meta.line,
+                                   node.meta.column)
+        return twisted(inner, turns[0] if len(turns) == 1 else turns)
 
     def _mirror(self, node, inner: Diagram) -> Diagram:
         return constructors.mirror(inner)

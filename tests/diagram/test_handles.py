@@ -103,3 +103,39 @@ def test_reversed_strands_change_the_class_not_the_gates():
     forward = fibers(2, 0)
     backward = handle_diagram(reverse(forward.diagram, [2]), [([1, 2], None)])
     assert [abs(a) for a in forward.homology_class()] == [2] and backward.homology_class() == (0,)
+
+
+def test_handle_diagrams_in_the_notation():
+    from movies.language.spec import parse_handle_diagram
+
+    h = parse_handle_diagram("unlink(4) with handle across 1 2 and handle across 3 4 from face 4")
+    assert len(h.gates) == 2 and h.two_divisible()
+    # the approximation is an ordinary diagram wherever one is written
+    assert parse_diagram("twisted(unlink(4) with handle across 1 2 and handle across 3 4, 1, -1)") == twisted(h, [1, -1])
+    assert parse_diagram("twisted(3_1 with handle across 1 5, 2)") == twisted(
+        handle_diagram(parse_diagram("3_1"), [([1, 5], None)]), 2)
+
+
+@pytest.mark.parametrize("text, message, column", [
+    ("3_1 with handle across 1 5", "a diagram with handles is a link in a connected sum of S^1 x S^2", 1),
+    ("twisted(3_1, 1)", "twisted(...) takes a diagram with handles", 1),
+    ("twisted(unlink(2) with handle across 1 2, 1, 2)", "one number of twists, or one for each of the 1 handles", 1),
+    ("(3_1 with handle across 1 5) # 4_1", "it cannot be part of a connected sum", 1),
+    ("twisted(unlink(2) with handle across 1 9, 1)", "handle 1: edge 9 is not in the diagram", 9),
+    ("twisted(unlink(3) with handle across 1 2 and handle across 2 3, 1)", "handles 1 and 2 both cross edge 2", 9),
+])
+def test_handle_errors_point_at_the_text(text, message, column):
+    from movies.errors import SpecDiagramError
+
+    with pytest.raises(SpecDiagramError) as caught:
+        parse_diagram(text)
+    assert message in str(caught.value) and caught.value.line == 1 and caught.value.column == column
+
+
+def test_a_twisted_approximation_past_the_crossing_limit_is_refused_before_it_is_built():
+    from movies import limits
+    from movies.errors import LocatedLimitError
+
+    with limits.using(crossings=10):
+        with pytest.raises(LocatedLimitError, match="twisted\\(...\\) would have 12 crossings"):
+            parse_diagram("twisted(braid(4)[] with handle across 1 2 3 4, 1)")
