@@ -13,7 +13,7 @@ traceback. ``exit_code`` is what the command line returns for it: 2 for input it
     │   ├── LimitError             input past one of the limits of movies.limits
     │   └── the located errors of the readers (below)
     ├── DiagramError               a name the diagram does not have (exit 2)
-    │   ├── MoveError, NameInUseError, EmptyDiagramError
+    │   ├── MoveError, NameInUseError, EmptyDiagramError, NotNullHomologousError
     ├── HomologyError              FieldError, NotAKnotError (exit 2)
     └── InternalError              a failed internal check: a bug (exit 3)
         └── InternalInconsistency  a verified movie that breaks a theorem
@@ -82,6 +82,10 @@ class DiagramError(MoviesError):
 
 class MoveError(DiagramError):
     """A Reidemeister or Morse move that does not apply where it was asked to."""
+
+
+class NotNullHomologousError(DiagramError):
+    """s of a link in a connected sum of S¹×S² asked for a link that is not null-homologous."""
 
 
 class NameInUseError(DiagramError):

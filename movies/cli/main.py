@@ -89,6 +89,8 @@ def build_parser() -> argparse.ArgumentParser:
     inv.add_argument("--reduced", action="store_true", help="also reduced Khovanov homology")
     inv.add_argument("--bar-natan", action="store_true", help="also Bar-Natan homology over F[H]")
     inv.add_argument("--classical", action="store_true", help="only the classical invariants (no homology)")
+    inv.add_argument("--twists", type=_whole_number, metavar="K", default="3",
+                     help="for a diagram with handles: compute s(L(k)) for |k| up to K (default 3)")
     _limit_option(inv)
     inv.set_defaults(run=_run_invariants)
 
@@ -246,6 +248,15 @@ def _run_invariants(args: argparse.Namespace) -> int:
 
         for field in fields:  # a field that is not one is refused before any work
             parse_field(field)
+    if args.spec is not None or args.file is not None:
+        from movies.diagram.handles import HandleDiagram
+        from movies.language.spec import read_spec
+
+        if sum(x is not None for x in (args.spec, args.pd, args.braid, args.file)) == 1:
+            spec = args.spec if args.spec is not None else read_text(args.file)
+            read = read_spec(spec)
+            if isinstance(read, HandleDiagram):
+                return _run_handles(args, args.spec or args.file, read, fields)
     label, diagram = diagram_from_arguments(args)
     facts = classical_invariants(diagram)
     if not args.classical and not diagram.is_empty():
@@ -257,6 +268,33 @@ def _run_invariants(args: argparse.Namespace) -> int:
         print(json.dumps(facts))
     else:
         print(invariants_text(label, facts))
+    return EXIT_OK
+
+
+def _run_handles(args: argparse.Namespace, label: str, link, fields: list[str]) -> int:
+    """``movies invariants`` of a link in #ʳ S¹×S²: its class and s of its twisted approximations."""
+    from movies.homology.approximations import NotNullHomologousError, s_of_handles
+    from movies.report.invariants import handles_text
+
+    twists = _number(args.twists, "--twists")
+    if twists < 1:
+        raise InputError(f"--twists is 1 or more, not {twists}")
+    facts: dict = {
+        "handles": len(link.gates), "class": list(link.homology_class()),
+        "null_homologous": link.null_homologous(), "two_divisible": link.two_divisible(),
+        "null_homologous_orientations": [list(o) for o in link.null_homologous_orientations()],
+        "s": None, "s_note": "",
+    }
+    if args.classical:
+        facts["s_note"] = "not computed (--classical)"
+    else:
+        try:
+            with _progress("approximations") as _:
+                found = s_of_handles(link, fields, most=twists)
+            facts["s"] = {field: sequence.as_json() for field, sequence in found.items()}
+        except NotNullHomologousError as err:
+            facts["s_note"] = str(err)
+    print(json.dumps(facts) if args.json else handles_text(label, facts))
     return EXIT_OK
 
 

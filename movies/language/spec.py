@@ -91,6 +91,7 @@ __all__ = [
     "diagram_parser",
     "parse_diagram",
     "parse_handle_diagram",
+    "read_spec",
 ]
 
 #: the words of the notation
@@ -172,6 +173,17 @@ def parse_handle_diagram(text: str) -> HandleDiagram:
     if not isinstance(result, HandleDiagram):
         raise SpecDiagramError("this diagram has no handles: write DIAGRAM with handle across E1 E2 ...", text, 1, 1)
     return result
+
+
+def read_spec(text: str) -> Diagram | HandleDiagram:
+    """The diagram, or the diagram with handles, that ``text`` describes (for readers of both).
+
+    >>> type(read_spec("3_1")).__name__, type(read_spec("unlink(2) with handle across 1 2")).__name__
+    ('Diagram', 'HandleDiagram')
+    """
+    if not isinstance(text, str):
+        raise InputError(f"a diagram is written as text, not {type(text).__name__}")
+    return _read(text)
 
 
 def _read(text: str):

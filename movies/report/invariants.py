@@ -108,3 +108,49 @@ def invariants_text(label: str, facts: dict) -> str:
         pairs = [f"lk({i + 1},{j + 1}) = {matrix[i][j]}" for i in range(len(matrix)) for j in range(i + 1, len(matrix))]
         rows.append(("linking numbers", ", ".join(pairs)))
     return "\n".join([label] + [f"  {name:<16} {value}" for name, value in rows])
+
+
+def handles_text(label: str, facts: dict) -> str:
+    """The readable report of ``movies invariants`` for a link in #ʳ S¹×S² (facts as its JSON).
+
+    A limit of s(L(k)) is printed as a value only when it is certified; otherwise as the interval
+    the computed sequence proves.
+
+    >>> print(handles_text("demo", {"handles": 1, "class": [0], "null_homologous": True, "two_divisible": True,
+    ...     "null_homologous_orientations": [[], [1, 2]], "s_note": "", "s": {"Q": {"sequence": [[-1, 1], [0, -1],
+    ...     [1, -1]], "window": [-3, 1], "s_plus": {"low": -3, "high": -1, "certified": False, "reached_at_k": None},
+    ...     "s_minus": {"low": 1, "high": 1, "certified": True, "reached_at_k": -1}}}}))
+    demo
+      a link in S^1 x S^2 (1 handle)
+      class            (0): null-homologous, 2-divisible
+      orientations     null-homologous: as given; reverse 1, 2
+      s(L(k)) over Q   k = -1: 1, 0: -1, 1: -1   (window -3 to 1)
+      s+ over Q          between -3 and -1: not certified (the sequence stays above the floor up to k = 1)
+      s- over Q          1: certified (the ceiling is reached at k = -1)
+    """
+    r = facts["handles"]
+    where = "S^1 x S^2" if r == 1 else f"#^{r} S^1 x S^2"
+    klass = ", ".join(map(str, facts["class"]))
+    kind = ("null-homologous" if facts["null_homologous"] else "not null-homologous") + \
+        (", 2-divisible" if facts["two_divisible"] else ", not 2-divisible")
+    shown = "; ".join("as given" if not o else "reverse " + ", ".join(map(str, o))
+                      for o in facts["null_homologous_orientations"]) or "none"
+    lines = [label, f"  a link in {where} ({plural(r, 'handle')})", f"  class            ({klass}): {kind}",
+             f"  orientations     null-homologous: {shown}"]
+    if facts["s"] is None:
+        lines.append(f"  s                {facts['s_note']}")
+        return "\n".join(lines)
+    for field, found in facts["s"].items():
+        sequence = ", ".join(f"{k}: {s}" for k, s in found["sequence"])
+        low, high = found["window"]
+        lines.append(f"  s(L(k)) over {field:<3} k = {sequence}   (window {low} to {high})")
+        top, bottom = found["sequence"][-1][0], found["sequence"][0][0]
+        for name, limit, end, far in (("s+", found["s_plus"], "floor", top), ("s-", found["s_minus"], "ceiling", bottom)):
+            if limit["certified"]:
+                text = f"{limit['low']}: certified (the {end} is reached at k = {limit['reached_at_k']})"
+            else:
+                side = "above the floor" if name == "s+" else "below the ceiling"
+                text = (f"between {limit['low']} and {limit['high']}: not certified (the sequence stays {side} "
+                        f"up to k = {far})")
+            lines.append(f"  {name} over {field:<10} {text}")
+    return "\n".join(lines)

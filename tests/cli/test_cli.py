@@ -126,3 +126,19 @@ def test_module_entry_point_and_console_script():
         capture_output=True, text=True, cwd=ROOT, check=False,
     )
     assert broken.returncode == 2 and "Traceback" not in broken.stderr
+
+
+def test_invariants_of_a_link_with_handles(capsys):
+    code, out, _ = run(capsys, "invariants", "3_1 with handle across 1 5", "--json", "--twists", "2")
+    facts = json.loads(out)
+    assert code == 0 and facts["class"] == [0] and facts["null_homologous"] and facts["two_divisible"]
+    # KnotInfo rasmussen_invariant: L(0) = 3_1 has s = 2, L(1) the unknot 0; the floor 2 - 2 = 0 is reached
+    assert facts["s"]["Q"]["sequence"] == [[-2, 2], [-1, 2], [0, 2], [1, 0]]
+    assert facts["s"]["Q"]["s_plus"] == {"low": 0, "high": 0, "certified": True, "reached_at_k": 1}
+    assert facts["s"]["Q"]["s_minus"]["certified"] is False
+    code, out, _ = run(capsys, "invariants", "3_1 with handle across 1 5", "--twists", "2")
+    assert "s+ over Q          0: certified" in out and "s- over Q          between 2 and 4: not certified" in out
+    code, out, _ = run(capsys, "invariants", "braid(3)[] with handle across 1 2 3")
+    assert code == 0 and "s is defined for null-homologous links only" in out
+    code, _, err = run(capsys, "invariants", "3_1 with handle across 1 9")
+    assert code == 2 and "handle 1: edge 9 is not in the diagram" in err

@@ -1,0 +1,83 @@
+"""s of null-homologous links in S¹×S² from their twisted approximations, checked against the tables."""
+
+import pytest
+
+from movies.diagram.handles import fibers, twisted
+from movies.diagram.tables import table_names, table_row
+from movies.errors import InternalError
+from movies.homology import approximations
+from movies.homology.approximations import NotNullHomologousError, s_of_handles
+from movies.invariants.jones import jones_polynomial
+from movies.language.spec import parse_handle_diagram
+from support.knotinfo_columns import parse_laurent
+
+
+@pytest.fixture(scope="module")
+def knots_by_jones():
+    """Table knots up to 9 crossings and their mirrors, by Jones polynomial (KnotInfo jones_polynomial)."""
+    found = {}
+    for name in table_names("knot", max_crossings=9):
+        row = table_row(name)
+        # KnotInfo column jones_polynomial, read as exact exponents; the mirror has t -> 1/t
+        jones = parse_laurent(row["jones_polynomial"], "t") if name != "0_1" else {0: 1}
+        s = int(row["rasmussen_invariant"]) if name != "0_1" else 0
+        found.setdefault(tuple(sorted(jones.items())), (name, s))
+        found.setdefault(tuple(sorted((-e, c) for e, c in jones.items())), (f"mirror({name})", -s))
+    return found
+
+
+def _identify(diagram, table):
+    terms = tuple(sorted(jones_polynomial(diagram).terms()))
+    return table[terms]
+
+
+@pytest.mark.parametrize("spec", ["3_1 with handle across 1 5", "mirror(3_1) with handle across 1 5"])
+def test_a_knot_through_a_handle_at_a_crossing_against_the_table(spec, knots_by_jones):
+    link = parse_handle_diagram(spec)
+    found = s_of_handles(link, ("Q", "F2"), most=3)
+    for field in ("Q", "F2"):
+        for k, s in found[field].values.items():
+            name, table_s = _identify(twisted(link, k), knots_by_jones)
+            # KnotInfo column rasmussen_invariant of the twist knot L(k) is (Rasmussen 2010: s(m(K)) = -s(K));
+            # the knots are twist knots and torus knots, whose s agrees over F2
+            assert s == table_s, (spec, k, name)
+    plus, minus = found["Q"].plus, found["Q"].minus
+    if spec.startswith("mirror"):
+        # L(k) = m(3_1), m(5_2), m(7_2), ... for k >= 0: s stays -2 above the floor -4, never certified
+        assert (plus.low, plus.high, plus.certified) == (-4, -2, False)
+        # L(-1) is the unknot: the ceiling 0 is reached, s_- = 0 is certified
+        assert minus.certified and minus.low == 0 and minus.at == -1
+    else:
+        assert plus.certified and plus.low == 0 and plus.at == 1
+        assert (minus.low, minus.high, minus.certified) == (2, 4, False)
+
+
+def test_balanced_fibers_limits():
+    found = s_of_handles(fibers(1, 1), ("Q",), most=3)["Q"]
+    # the design notes: s(F(1, 1)(k)) = -1 for k >= 1 (not certifiable from the window alone), +1 for k <= -1
+    assert [found.values[k] for k in (1, 2, 3)] == [-1, -1, -1]
+    assert not found.plus.certified and (found.plus.low, found.plus.high) == (-3, -1)
+    assert found.minus.certified and found.minus.low == 1
+
+
+def test_s_needs_a_null_homologous_link():
+    with pytest.raises(NotNullHomologousError, match=r"class \(2,\); these orientations are null-homologous: "
+                                                     r"reverse 1; reverse 2"):
+        s_of_handles(fibers(2, 0))
+    with pytest.raises(NotNullHomologousError, match="no orientation is null-homologous"):
+        s_of_handles(fibers(2, 1))
+
+
+def test_a_sequence_that_breaks_the_theorems_is_an_internal_error(monkeypatch):
+    # the checks can fail: feed a rising sequence through the judge
+    with pytest.raises(InternalError, match="cannot increase"):
+        approximations._judge("Q", {0: 0, 1: 2}, 2)
+    with pytest.raises(InternalError, match="outside the window"):
+        approximations._judge("Q", {0: 0, 1: -6}, 2)
+
+
+def test_the_limits_are_ordered(knots_by_jones):
+    # s_+ <= s_- for every link (the sequence is non-increasing)
+    for spec in ("3_1 with handle across 1 5", "unlink(2) with handle across 1 2"):
+        found = s_of_handles(parse_handle_diagram(spec), ("Q",), most=2)["Q"]
+        assert found.plus.low <= found.plus.high <= found.minus.low <= found.minus.high
