@@ -106,12 +106,7 @@ def twist(
     ...
     movies.errors.MoveError: no gate across edges [1, 2] from face 2: edges 1 and 2 do not share a face after crossing 1 from face 2 (the gate is in face 1; edge 2 borders faces 3 and 2)
     """
-    try:
-        edges = list(edges)
-    except TypeError:
-        raise MoveError(f"the edges of a twist are a list of edge names, not {edges!r}") from None
-    if not edges:
-        raise MoveError("a twist needs at least one edge for its gate to cross")
+    edges = _edge_list(edges, "a twist", "a twist needs at least one edge for its gate to cross")
     if type(turns) is not int or turns == 0:
         raise MoveError(
             f"turns is a nonzero integer (+1 a right-handed full twist, -1 a left-handed one), not {turns!r}"
@@ -203,12 +198,7 @@ def gate_path(diagram: Diagram, edges: Sequence[int], start_face: int | None = N
     >>> gate_path(unlink(2), [1, 2])
     ([1, 2, 3], [1, -1])
     """
-    try:
-        edges = list(edges)
-    except TypeError:
-        raise MoveError(f"the edges of a gate are a list of edge names, not {edges!r}") from None
-    if not edges:
-        raise MoveError("a gate needs at least one edge to cross")
+    edges = _edge_list(edges, "a gate", "a gate needs at least one edge to cross")
     for edge in edges:
         _check_edge(diagram, edge)
     repeated = sorted({edge for edge in edges if edges.count(edge) > 1})
@@ -241,6 +231,17 @@ def gate_path(diagram: Diagram, edges: Sequence[int], start_face: int | None = N
             f"{walks[beside[0]]}; starting in face {beside[1]}, {walks[beside[1]]}"
         )
     return walks[fits[0]]  # type: ignore[return-value]
+
+
+def _edge_list(edges, whose: str, empty: str) -> list[int]:
+    """The edges as a list, or a MoveError: not a list of names, or none at all."""
+    try:
+        edges = list(edges)
+    except TypeError:
+        raise MoveError(f"the edges of {whose} are a list of edge names, not {edges!r}") from None
+    if not edges:
+        raise MoveError(empty)
+    return edges
 
 
 def gate_arcs(edges: Sequence[int], faces: Sequence[int], directions: Sequence[int]) -> dict[int, list[tuple[Side, Side]]]:
