@@ -97,6 +97,14 @@ def test_gate_errors_name_the_handle():
         handle_diagram(from_braid([], strands=3), [([1, 3], None)])
     with pytest.raises(MoveError, match="at least one handle"):
         handle_diagram(unlink(1), [])
+    # face 1 of the table's 5_1 is bounded by edges 1, 7, 3, 9 in this order: a gate from edge 1 to edge 3
+    # and one from edge 7 to edge 9 would have to cross inside it
+    five = parse_diagram("5_1")
+    assert [side.edge for side in five.faces[1][0]][:4] == [1, 7, 3, 9]
+    with pytest.raises(MoveError, match=r"^handles 1 and 2 cross each other in face 1"):
+        handle_diagram(five, [([1, 3], 2), ([7, 9], 3)])
+    # either gate alone is fine
+    assert handle_diagram(five, [([1, 3], 2)]).gates and handle_diagram(five, [([7, 9], 3)]).gates
 
 
 def test_reversed_strands_change_the_class_not_the_gates():
