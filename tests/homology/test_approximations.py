@@ -8,7 +8,8 @@ from movies.errors import InternalError
 from movies.homology import approximations
 from movies.homology.approximations import NotNullHomologousError, s_of_handles
 from movies.invariants.jones import jones_polynomial
-from movies.language.spec import parse_handle_diagram
+from movies.diagram.constructors import mirror
+from movies.language.spec import parse_diagram, parse_handle_diagram
 from support.knotinfo_columns import parse_laurent
 
 
@@ -81,3 +82,57 @@ def test_the_limits_are_ordered(knots_by_jones):
     for spec in ("3_1 with handle across 1 5", "unlink(2) with handle across 1 2"):
         found = s_of_handles(parse_handle_diagram(spec), ("Q",), most=2)["Q"]
         assert found.plus.low <= found.plus.high <= found.minus.low <= found.minus.high
+
+
+def _balanced_gate(diagram, rng):
+    """A gate across two edges of one face running opposite ways through it (a = 0), or None."""
+    from movies.diagram.moves.twist import gate_path
+    from movies.errors import MoveError
+
+    faces = sorted(diagram.faces)
+    rng.shuffle(faces)
+    for face in faces:
+        edges = sorted({side.edge for cycle in diagram.faces[face] for side in cycle})
+        rng.shuffle(edges)
+        for first in edges:
+            for second in edges:
+                if first == second:
+                    continue
+                start = [f for f in diagram.faces_beside(first) if f != face]
+                if not start:
+                    continue
+                try:
+                    _, directions = gate_path(diagram, [first, second], start[0])
+                except MoveError:
+                    continue
+                if sum(directions) == 0:
+                    return [first, second], start[0]
+    return None
+
+
+def test_random_null_homologous_links_in_s1xs2():
+    import random
+
+    from movies.diagram.handles import handle_diagram
+    from movies.homology.links import link_s_values
+
+    rng = random.Random(13)
+    names = table_names("knot", max_crossings=6)[1:] + ["L2a1{0}", "L4a1{0}", "L5a1{0}", "L6a3{0}"]
+    checked = 0
+    for name in rng.sample(names, 10):
+        diagram = parse_diagram(name)
+        gate = _balanced_gate(diagram, rng)
+        if gate is None:
+            continue
+        link = handle_diagram(diagram, [gate])
+        # monotone in k and inside the window are checked inside (an internal error otherwise)
+        found = s_of_handles(link, ("Q",), most=2)["Q"]
+        assert found.plus.low <= found.plus.high <= found.minus.low <= found.minus.high
+        # the mirror: m(L)(k) is m(L(-k)), gate for gate (mirroring keeps every name)
+        image = handle_diagram(mirror(diagram), [gate])
+        for k in (-1, 1):
+            mirrored_after = mirror(twisted(link, -k))
+            assert jones_polynomial(twisted(image, k)) == jones_polynomial(mirrored_after)
+            assert link_s_values(twisted(image, k), ("Q",)) == link_s_values(mirrored_after, ("Q",))
+        checked += 1
+    assert checked >= 6, checked
