@@ -193,3 +193,23 @@ def test_the_positive_trefoil_bounds_a_null_homologous_disk_in_a_punctured_cp2_b
     assert [b["summand"] for b in forwards["surface"]["blowups"]] == ["CP^2"]
     assert [b["turns"] for b in forwards["surface"]["blowups"]] == [1]
     assert [b["turns"] for b in backwards["surface"]["blowups"]] == [-1]
+
+
+def _handle_facts(capsys, name):
+    path = EXAMPLES.parent / "diagrams" / f"{name}.txt"
+    assert main(["invariants", "--file", str(path), "--json", "--twists", "2"]) == 0
+    return json.loads(capsys.readouterr().out)
+
+
+def test_links_in_s1xs2_examples(capsys):
+    trefoil = _handle_facts(capsys, "trefoil-through-a-handle")
+    # KnotInfo rasmussen_invariant: 3_1, 5_2, 7_2 have s = 2; the unknot 0 (L(1), identified in the homology tests)
+    assert trefoil["s"]["Q"]["sequence"] == [[-2, 2], [-1, 2], [0, 2], [1, 0]]
+    assert trefoil["s"]["Q"]["s_plus"]["certified"] and trefoil["s"]["Q"]["s_plus"]["low"] == 0
+    fibers = _handle_facts(capsys, "two-fibers-opposite-ways")
+    # the design notes: s(F(1, 1)(k)) = -1 for k >= 1 (Ren 2023 at k = 1), +1 for k <= -1
+    assert [s for k, s in fibers["s"]["Q"]["sequence"]] == [1, -1, -1, -1]
+    assert not fibers["s"]["Q"]["s_plus"]["certified"] and fibers["s"]["Q"]["s_minus"]["certified"]
+    two = _handle_facts(capsys, "two-handles")
+    # Beliakova–Wehrli 2008: s of a split union is s1 + s2 - 1; each half is F(1, 1)(k)
+    assert two["class"] == [0, 0] and [s for k, s in two["s"]["Q"]["sequence"]] == [1, -3, -3, -3]
