@@ -154,6 +154,19 @@ def from_braid(word: Sequence[int], strands: int | None = None) -> Diagram:
     ...
     movies.errors.GeneratorError: generator 0 at position 3 of the braid word: generators are nonzero (i is sigma_i, -i its inverse)
     """
+    return braid_closure(word, strands)[0]
+
+
+def braid_closure(word: Sequence[int], strands: int | None = None) -> tuple[Diagram, list[int]]:
+    """:func:`from_braid`, and the edge that closes each position (position 1 first).
+
+    The edge at position i runs from the top of the braid round the closure to its bottom;
+    position 1's is the outermost. A gate across them all, in order, is the braid axis.
+
+    >>> d, closing = braid_closure([1, 1, 1])
+    >>> closing, d.crossing_count()
+    ([1, 4], 3)
+    """
     word, strands = _check_word(word, strands)
     # Segments of strand between crossings, at positions 0..strands-1 (left to right).
     bottom = list(range(strands))
@@ -192,8 +205,9 @@ def from_braid(word: Sequence[int], strands: int | None = None) -> Diagram:
     touched = {abs(g) - 1 for g in word} | {abs(g) for g in word}
     loops = [label[bottom[p]] for p in range(strands) if p not in touched]
     shape = assemble(crossings, signs, loops)
+    closing = [label[b] for b in bottom]
     return Diagram(shape.crossings, shape.signs, shape.loops, shape.components,
-                   _closure_faces(shape, word, strands, [label[b] for b in bottom]))
+                   _closure_faces(shape, word, strands, closing)), closing
 
 
 def _closure_faces(shape: Diagram, word: list[int], strands: int, bottom_edges: list[int]):

@@ -32,13 +32,13 @@ from dataclasses import dataclass
 from itertools import product
 from typing import Sequence
 
-from movies.diagram.constructors import from_braid, reverse
+from movies.diagram.constructors import braid_closure, from_braid, reverse
 from movies.diagram.model import Diagram, Side
 from movies.diagram.moves import twist
 from movies.diagram.moves.twist import arcs_tangled, gate_arcs, gate_path
 from movies.errors import DiagramError, MoveError
 
-__all__ = ["Gate", "HandleDiagram", "handle_diagram", "fibers", "twisted"]
+__all__ = ["Gate", "HandleDiagram", "handle_diagram", "fibers", "closed_braid", "twisted"]
 
 #: how many orientations the search for null-homologous ones tries at most (2^components)
 MOST_ORIENTATIONS = 1 << 16
@@ -171,6 +171,27 @@ def fibers(p: int, q: int) -> HandleDiagram:
         circles = reverse(circles, range(p + 1, p + q + 1))
     # face 1 is inside the innermost circle: the gate runs from there out, crossing each once
     return handle_diagram(circles, [(list(range(1, p + q + 1)), 1)])
+
+
+def closed_braid(word: Sequence[int], strands: int | None = None,
+                 reversed_components: Sequence[int] = ()) -> HandleDiagram:
+    """The closure of a braid through one handle: the handle is the braid axis, so every strand
+    passes through it once; ``reversed_components`` (names in the closure) run the other way.
+
+    L(k) of it is the closure of the braid followed by k full twists (Δ²ᵏ).
+
+    >>> h = closed_braid([1, 1, 1])
+    >>> h.homology_class(), closed_braid([1, 1, 1, 1], reversed_components=[2]).homology_class()
+    ((2,), (0,))
+    """
+    diagram, closing = braid_closure(word, strands)
+    if reversed_components:
+        diagram = reverse(diagram, reversed_components)
+    try:
+        return handle_diagram(diagram, [(closing, None)])
+    except MoveError:  # both sides of the outermost closing arc would do: the gate runs inward from outside
+        outside = diagram.side_face[Side(closing[0], "L")]
+        return handle_diagram(diagram, [(closing, outside)])
 
 
 def twisted(link: HandleDiagram, k: int | Sequence[int]) -> Diagram:

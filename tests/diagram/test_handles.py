@@ -147,3 +147,19 @@ def test_a_twisted_approximation_past_the_crossing_limit_is_refused_before_it_is
     with limits.using(crossings=10):
         with pytest.raises(LocatedLimitError, match="twisted\\(...\\) would have 12 crossings"):
             parse_diagram("twisted(braid(4)[] with handle across 1 2 3 4, 1)")
+
+
+def test_a_closed_braid_through_its_axis():
+    from movies.diagram.handles import closed_braid
+
+    trefoil = closed_braid([1, 1, 1])
+    assert trefoil.homology_class() == (2,) and not trefoil.null_homologous()
+    # common practice, no source: one full twist on the closure of a braid adds Delta^2 to the word;
+    # sigma_1^3 Delta^2 = sigma_1^5 closes to T(2, 5), KnotInfo's 5_1 (braid_notation [1,1,1,1,1])
+    assert jones_polynomial(twisted(trefoil, 1)) == jones_polynomial(parse_diagram("5_1"))
+    assert str(jones_polynomial(twisted(trefoil, -1))) == "1"  # sigma_1^3 Delta^-2 = sigma_1: an unknot
+    # (sigma_1 sigma_2) Delta^2 = (sigma_1 sigma_2)^4 closes to T(3, 4)
+    assert jones_polynomial(twisted(closed_braid([1, 2]), 1)) == jones_polynomial(torus_link(3, 4))
+    # with one component reversed, the two strands of T(2, 2k)'s braid pass opposite ways
+    balanced = closed_braid([1, 1], reversed_components=[2])
+    assert balanced.null_homologous() and balanced.two_divisible()
