@@ -38,7 +38,7 @@ from movies.diagram.moves import twist
 from movies.diagram.moves.twist import arcs_tangled, gate_arcs, gate_path
 from movies.errors import DiagramError, MoveError
 
-__all__ = ["Gate", "HandleDiagram", "handle_diagram", "fibers", "closed_braid", "twisted"]
+__all__ = ["Gate", "HandleDiagram", "handle_diagram", "regated", "fibers", "closed_braid", "twisted"]
 
 #: how many orientations the search for null-homologous ones tries at most (2^components)
 MOST_ORIENTATIONS = 1 << 16
@@ -153,6 +153,17 @@ def handle_diagram(diagram: Diagram, gates: Sequence[tuple[Sequence[int], int | 
         raise MoveError(f"handles {' and '.join(map(str, crossing))} cross each other in face {tangled}: "
                         "their gates cannot be drawn apart there")
     return HandleDiagram(diagram, tuple(checked), tuple(path[2] for path in paths))
+
+
+def regated(link: HandleDiagram, diagram: Diagram) -> HandleDiagram:
+    """The same handles on a diagram with the same names (its mirror image, or with components
+    reversed: both keep every edge and face), checked again.
+
+    >>> from movies.diagram.constructors import mirror
+    >>> regated(fibers(1, 1), mirror(fibers(1, 1).diagram)).homology_class()
+    (0,)
+    """
+    return handle_diagram(diagram, [(gate.edges, gate.start_face(link.diagram)) for gate in link.gates])
 
 
 def fibers(p: int, q: int) -> HandleDiagram:

@@ -51,7 +51,7 @@ from lark.exceptions import UnexpectedCharacters, UnexpectedEOF, UnexpectedInput
 
 from movies import limits
 from movies.diagram import constructors
-from movies.diagram.handles import HandleDiagram, handle_diagram, twisted
+from movies.diagram.handles import HandleDiagram, closed_braid, fibers, handle_diagram, regated, twisted
 from movies.diagram.model import Diagram
 from movies.diagram.pd import from_pd
 from movies.diagram.tables import canonical_name, lookup
@@ -96,7 +96,7 @@ __all__ = [
 
 #: the words of the notation
 KEYWORDS = ("unknot", "empty", "unlink", "braid", "torus", "pd", "mirror", "reverse", "twisted", "with", "handle",
-            "across", "and", "from", "face")
+            "across", "and", "from", "face", "fibers", "axis")
 
 
 # ---------------------------------------------------------------------- the parser
@@ -207,7 +207,7 @@ _ROLE = {"union": "a disjoint union", "connected_sum": "a connected sum", "mirro
 _LEVELS = " (each '#', '+', mirror, reverse, twisted and a list of handles is one level)"
 #: the parts of the tree that hold diagrams, by the kind of node
 _PARTS = {"mirror": (0,), "reverse": (0,), "union": (0, 2), "connected_sum": (0, 2), "with_handles": (0,),
-          "twisted": (0,)}
+          "twisted": (0,), "axis": (0,)}
 
 
 def _check_tree(text: str, root) -> None:
@@ -273,6 +273,24 @@ def _leaf_size(node) -> tuple[int, int]:
     return 0, 0
 
 
+def _bundles(node) -> list[int]:
+    """How many strands pass through each handle of a diagram-with-handles node, read off the text."""
+    try:
+        if node.data == "with_handles":
+            return [len([t for t in h.children if isinstance(t, Token)]) - (h.children[-1] is not None)
+                    for h in node.children[1:]]
+        if node.data == "fibers":
+            return [abs(int(node.children[0])) + abs(int(node.children[1]))]
+        if node.data == "axis" and node.children[0].data == "braid":
+            strands, word = node.children[0].children
+            count = int(strands.children[0]) if strands is not None else max((abs(int(g)) for g in word.children),
+                                                                              default=0) + 1
+            return [count]
+    except ValueError:  # the builder reports what is wrong, where it is
+        pass
+    return []
+
+
 def _check_sizes(text: str, root) -> None:
     """Refuse a union or connected sum past the crossing or component limit before any of its
     parts is built: their sizes add up."""
@@ -290,8 +308,7 @@ def _check_sizes(text: str, root) -> None:
         elif node.data == "twisted":
             (crossings, components), = parts
             inner, turns = node.children[0], node.children[1:]
-            bundles = ([len([t for t in h.children if isinstance(t, Token)]) - (h.children[-1] is not None)
-                        for h in inner.children[1:]] if inner.data == "with_handles" else [])
+            bundles = _bundles(inner)
             amounts = [abs(int(t)) for t in turns] * (len(bundles) if len(turns) == 1 else 1)
             size = (crossings + sum(k * n * (n - 1) for k, n in zip(amounts, bundles)), components)
             if size[0] > limits.current()["crossings"]:
@@ -533,7 +550,7 @@ class _Builder:
 
     def make(self, node, parts: list[Diagram]) -> Diagram:
         method = getattr(self, f"_{node.data}")
-        if node.data != "twisted" and any(isinstance(part, HandleDiagram) for part in parts):
+        if node.data not in ("twisted", "mirror", "reverse") and any(isinstance(part, HandleDiagram) for part in parts):
             raise SpecDiagramError("a diagram with handles stands alone or inside twisted(...); it cannot be "
                                    f"part of {_ROLE.get(node.data, node.data)}", self.text, node.meta.line,
                                    node.meta.column)
@@ -600,6 +617,18 @@ class _Builder:
             gates.append(([self.number(edge) for edge in edges], None if face is None else self.number(face)))
         return handle_diagram(diagram, gates)
 
+    def _fibers(self, node, p: Token, q: Token) -> HandleDiagram:
+        return fibers(self.number(p), self.number(q))
+
+    def _axis(self, node, inner) -> HandleDiagram:
+        braid = node.children[0]
+        if not isinstance(braid, Tree) or braid.data != "braid":
+            raise SpecDiagramError("axis(...) takes a braid, as in axis(braid[1, 1, 1]): its axis is the handle",
+                                   self.text, node.meta.line, node.meta.column)
+        strands, word = braid.children
+        generators = [self.number(token) for token in word.children]
+        return closed_braid(generators, self.number(strands.children[0]) if strands is not None else None)
+
     def _twisted(self, node, inner) -> Diagram:
         turns = [self.number(token) for token in node.children[1:]]
         if not isinstance(inner, HandleDiagram):
@@ -612,9 +641,13 @@ class _Builder:
         return twisted(inner, turns[0] if len(turns) == 1 else turns)
 
     def _mirror(self, node, inner: Diagram) -> Diagram:
+        if isinstance(inner, HandleDiagram):
+            return regated(inner, constructors.mirror(inner.diagram))
         return constructors.mirror(inner)
 
     def _reverse(self, node, diagram: Diagram) -> Diagram:
+        if isinstance(diagram, HandleDiagram):
+            return regated(diagram, self._reverse(node, diagram.diagram))
         numbers = node.children[1:]
         for number in numbers:
             if self.number(number) not in diagram.components:

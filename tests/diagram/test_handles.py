@@ -163,3 +163,20 @@ def test_a_closed_braid_through_its_axis():
     # with one component reversed, the two strands of T(2, 2k)'s braid pass opposite ways
     balanced = closed_braid([1, 1], reversed_components=[2])
     assert balanced.null_homologous() and balanced.two_divisible()
+
+
+def test_constructors_in_the_notation():
+    from movies.diagram.handles import closed_braid
+    from movies.language.spec import parse_handle_diagram
+
+    assert parse_handle_diagram("fibers(2, 1)") == fibers(2, 1)
+    assert parse_handle_diagram("axis(braid[1, 1, 1])") == closed_braid([1, 1, 1])
+    reversed_ = parse_handle_diagram("reverse(axis(braid[1, 1, 1, 1]), 2)")
+    assert reversed_ == closed_braid([1, 1, 1, 1], reversed_components=[2]) and reversed_.null_homologous()
+    # mirroring keeps the handles, and the mirror's approximations are the mirrors of the opposite ones
+    image = parse_handle_diagram("mirror(fibers(1, 1))")
+    assert jones_polynomial(twisted(image, 1)) == jones_polynomial(mirror(twisted(fibers(1, 1), -1)))
+    assert parse_diagram("twisted(axis(braid[1, 2]), 1)").crossing_count() == 8
+    from movies.errors import SpecDiagramError
+    with pytest.raises(SpecDiagramError, match=r"axis\(...\) takes a braid"):
+        parse_handle_diagram("axis(3_1)")
