@@ -424,6 +424,12 @@ def _run_bounds(args: argparse.Namespace) -> int:
     args.genus = _number(args.genus, "--genus")
     args.components = _number(args.components, "--components")
     args.blowups = _number(args.blowups, "--blowups")
+    from movies.diagram.handles import HandleDiagram
+    from movies.language.spec import read_spec
+
+    read = read_spec(args.spec)
+    if isinstance(read, HandleDiagram):
+        return _run_handle_bounds(args, read)
     first = parse_diagram(args.spec)
     data: dict = {"first": args.spec}
     lines = [args.spec]
@@ -457,6 +463,26 @@ def _run_bounds(args: argparse.Namespace) -> int:
         })
         lines += cobordism_lines(args.to, answer)
     print(json.dumps(data) if args.json else "\n".join(lines))
+    return EXIT_OK
+
+
+def _run_handle_bounds(args: argparse.Namespace, link) -> int:
+    """``movies bounds`` of a link in #ʳ S¹×S²: surfaces it bounds in ♮ʳ S¹×B³."""
+    from movies.bounds.handles import s1xb3_question
+    from movies.report.questions import handle_surface_lines
+
+    if args.to is not None or args.blowups is not None or args.components is not None:
+        raise InputError("for a diagram with handles, movies bounds asks about surfaces in the boundary sum of "
+                         "S^1 x B^3 it bounds: --to, --blowups and --components do not apply")
+    if args.genus < 0:
+        raise InputError("--genus is 0 or more")
+    answer = s1xb3_question(link, args.genus)
+    data = {"first": args.spec, "in": "S^1 x B^3 boundary sum", "genus": args.genus,
+            "euler_characteristic": answer.euler_characteristic, "least_genus": answer.least_genus,
+            "allowed_by_s": answer.allowed, "bounds": [b.as_json() for b in answer.bounds],
+            "values": {f: {w: [[k, s] for k, s in sorted(v.items())] for w, v in vs.items()}
+                       for f, vs in answer.values.items()}}
+    print(json.dumps(data) if args.json else "\n".join([args.spec] + handle_surface_lines(len(link.gates), answer)))
     return EXIT_OK
 
 
