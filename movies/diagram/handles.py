@@ -129,8 +129,8 @@ def handle_diagram(diagram: Diagram, gates: Sequence[tuple[Sequence[int], int | 
         edges = tuple(edges)
         try:
             faces, directions = gate_path(diagram, edges, start_face)
-        except MoveError as err:
-            raise MoveError(f"handle {index}: {err}") from None
+        except MoveError as err:  # the notation names the start face with 'from face F'
+            raise MoveError(f"handle {index}: " + str(err).replace("with start_face", "with 'from face F'")) from None
         left, _ = diagram.faces_beside(edges[0])
         checked.append(Gate(edges, "L" if faces[0] == left else "R"))
         paths.append((edges, faces, tuple(directions)))
