@@ -75,7 +75,8 @@ def test_null_homologous_disks_in_a_punctured_blown_up_ball(name, s):
     # K on the boundary of a negative definite X bounding a null-homologous disk forces s(K) <= 0 (tau(K) <= 0)
     assert in_bar.place.name == "B^4 # CP^2-bar" and in_bar.place.definite == "negative definite"
     assert in_bar.shapes[0].allowed is (s <= 0)
-    # reversing the orientation of the pair: K bounds in punctured CP^2 iff m(K) bounds in punctured CP^2-bar
+    # common practice, no source: reversing the orientation of the pair, K bounds in punctured CP^2 iff m(K)
+    # bounds in punctured CP^2-bar
     assert in_plus.place.name == "B^4 # CP^2"
     assert in_plus.shapes[0].allowed is (-s <= 0)
 
