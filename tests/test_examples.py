@@ -210,6 +210,11 @@ def test_links_in_s1xs2_examples(capsys):
     # the design notes: s(F(1, 1)(k)) = -1 for k >= 1 (Ren 2023 at k = 1), +1 for k <= -1
     assert [s for k, s in fibers["s"]["Q"]["sequence"]] == [1, -1, -1, -1]
     assert not fibers["s"]["Q"]["s_plus"]["certified"] and fibers["s"]["Q"]["s_minus"]["certified"]
+    clasp = _handle_facts(capsys, "twist-knots-through-a-handle")
+    # KnotInfo rasmussen_invariant: 4_1 and 6_1 have s = 0, the negative trefoil and mirror(5_2) -2
+    assert clasp["s"]["Q"]["sequence"] == [[-2, 0], [-1, 0], [0, 0], [1, -2]]
+    assert clasp["s"]["Q"]["s_plus"] == {"low": -2, "high": -2, "certified": True, "reached_at_k": 1}
+    assert clasp["s"]["Q"]["s_minus"] == {"low": 0, "high": 2, "certified": False, "reached_at_k": None}
     two = _handle_facts(capsys, "two-handles")
     # Beliakova–Wehrli 2008: s of a split union is s1 + s2 - 1; each half is F(1, 1)(k)
     assert two["class"] == [0, 0] and [s for k, s in two["s"]["Q"]["sequence"]] == [1, -3, -3, -3]

@@ -7,6 +7,7 @@ from movies.diagram.tables import table_names, table_row
 from movies.errors import InternalError
 from movies.homology import approximations
 from movies.homology.approximations import NotNullHomologousError, s_of_handles
+from movies.homology.links import link_s_values
 from movies.invariants.jones import jones_polynomial
 from movies.diagram.constructors import mirror
 from movies.language.spec import parse_diagram, parse_handle_diagram
@@ -134,3 +135,42 @@ def test_random_null_homologous_links_in_s1xs2():
             assert link_s_values(twisted(image, k), ("Q",)) == link_s_values(mirrored_after, ("Q",))
         checked += 1
     assert checked >= 6, checked
+
+
+# an unknot drawn with two curls, the handle through both curl loops: twisting the loops around
+# each other at the handle makes the clasp of a twist knot, so every L(k) is a twist knot and L(0)
+# is the unknot. The two diagrams differ in the sign of one curl, i.e. in the clasp.
+CLASP_TO_NEGATIVE_TREFOIL = "pd[[1,2,2,3],[3,4,4,1]] with handle across 2 4"
+CLASP_TO_FIGURE_EIGHT = "pd[[1,1,2,3],[4,4,3,2]] with handle across 1 4"
+
+
+@pytest.mark.parametrize("spec", [CLASP_TO_NEGATIVE_TREFOIL, CLASP_TO_FIGURE_EIGHT])
+def test_twist_knots_through_one_handle_against_the_table(spec, knots_by_jones):
+    link = parse_handle_diagram(spec)
+    names = {}
+    for k in range(-3, 4):
+        name, table_s = _identify(twisted(link, k), knots_by_jones)
+        names[k] = name
+        # KnotInfo column rasmussen_invariant of the twist knot L(k) (negated for a mirror, Rasmussen 2010)
+        assert link_s_values(twisted(link, k), ("Q", "F2")) == {"Q": table_s, "F2": table_s}, (k, name)
+    # the twist knots, identified by KnotInfo's jones_polynomial column: L(0) is the unknot
+    assert names[0] == "0_1"
+    if spec == CLASP_TO_NEGATIVE_TREFOIL:
+        assert names[1] == "mirror(3_1)" and {names[-1], names[-2]} == {"4_1", "6_1"}
+    else:
+        assert names[1] == "4_1" and names[-1] == "3_1"
+
+
+def test_the_clasp_decides_which_limit_is_certified():
+    for field, found in s_of_handles(parse_handle_diagram(CLASP_TO_NEGATIVE_TREFOIL), ("Q", "F2"), most=3).items():
+        # the design notes (section 3): L(1) is the negative trefoil, s = -2 = s(L(0)) - 2, the floor of
+        # the window, so s_+ = -2 is certified at k = 1; for k < 0 the twist knots have s = 0 (KnotInfo
+        # rasmussen_invariant of 4_1, 6_1, 8_1) and s_- is only known to lie in [0, 2]
+        assert found.plus == approximations.Limit(-2, -2, 1), field
+        assert (found.minus.low, found.minus.high, found.minus.certified) == (0, 2, False), field
+    for field, found in s_of_handles(parse_handle_diagram(CLASP_TO_FIGURE_EIGHT), ("Q", "F2"), most=3).items():
+        # the mirror-image statements: s(L(k)) = 0 for every computed k >= 0, the floor -2 is never reached,
+        # so s_+ is reported as the interval [-2, 0]; L(-1) is the positive trefoil and s_- = 2 is certified
+        assert [found.values[k] for k in (0, 1, 2, 3)] == [0, 0, 0, 0]
+        assert (found.plus.low, found.plus.high, found.plus.certified) == (-2, 0, False), field
+        assert found.minus == approximations.Limit(2, 2, -1), field
