@@ -467,22 +467,21 @@ def _run_bounds(args: argparse.Namespace) -> int:
 
 
 def _run_handle_bounds(args: argparse.Namespace, link) -> int:
-    """``movies bounds`` of a link in #ʳ S¹×S²: surfaces it bounds in ♮ʳ S¹×B³."""
-    from movies.bounds.handles import s1xb3_question
+    """``movies bounds`` of a link in #ʳ S¹×S²: surfaces it bounds in ♮ʳ S¹×B³ and in ♮ʳ B²×S²."""
+    from movies.bounds.handles import surface_questions
     from movies.report.questions import handle_surface_lines
 
     if args.to is not None or args.blowups is not None or args.components is not None:
-        raise InputError("for a diagram with handles, movies bounds asks about surfaces in the boundary sum of "
-                         "S^1 x B^3 it bounds: --to, --blowups and --components do not apply")
+        raise InputError("for a diagram with handles, movies bounds asks about surfaces it bounds in the boundary "
+                         "sums of S^1 x B^3 and of B^2 x S^2: --to, --blowups and --components do not apply")
     if args.genus < 0:
         raise InputError("--genus is 0 or more")
-    answer = s1xb3_question(link, args.genus)
-    data = {"first": args.spec, "in": "S^1 x B^3 boundary sum", "genus": args.genus,
-            "euler_characteristic": answer.euler_characteristic, "least_genus": answer.least_genus,
-            "allowed_by_s": answer.allowed, "bounds": [b.as_json() for b in answer.bounds],
+    answers = surface_questions(link, args.genus)
+    data = {"first": args.spec, "genus": args.genus,
             "values": {f: {w: [[k, s] for k, s in sorted(v.items())] for w, v in vs.items()}
-                       for f, vs in answer.values.items()}}
-    print(json.dumps(data) if args.json else "\n".join([args.spec] + handle_surface_lines(len(link.gates), answer)))
+                       for f, vs in answers[0].values.items()},
+            "manifolds": [answer.as_json() for answer in answers]}
+    print(json.dumps(data) if args.json else "\n".join([args.spec] + handle_surface_lines(answers)))
     return EXIT_OK
 
 

@@ -65,19 +65,22 @@ def _fields(values: dict) -> str:
     return ", ".join(f"{v} over {f}" for f, v in values.items())
 
 
-def handle_surface_lines(handles: int, answer) -> list[str]:
-    """The readable answer of ``movies bounds`` for a link in #ʳ S¹×S² (surfaces in ♮ʳ S¹×B³).
+def handle_surface_lines(answers) -> list[str]:
+    """The readable answer of ``movies bounds`` for a link in #ʳ S¹×S²: one block per 4-manifold it bounds.
 
-    >>> from movies.bounds.handles import s1xb3_question
+    >>> from movies.bounds.handles import surface_questions
     >>> from movies.diagram.handles import fibers
-    >>> handle_surface_lines(1, s1xb3_question(fibers(1, 1), fields=("Q",)))[0]
-    '  surfaces in S^1 x B^3 with no closed components: total genus at least 0 (by s of the approximations L(k))'
+    >>> handle_surface_lines(surface_questions(fibers(1, 1), fields=("Q",)))[0]
+    '  in S^1 x B^3 (every surface): total genus at least 0 for a surface with no closed components'
     """
-    where = "S^1 x B^3" if handles == 1 else f"the boundary sum of {handles} S^1 x B^3"
-    lines = [f"  surfaces in {where} with no closed components: total genus at least {answer.least_genus} "
-             "(by s of the approximations L(k))",
-             f"  a connected surface of genus {answer.genus} (Euler characteristic {answer.euler_characteristic}):"]
-    lines += [f"    {b.statement}: {b.lhs} >= {b.rhs} {'holds' if b.holds else 'FAILS'}" for b in answer.bounds]
-    lines.append("    allowed by s" if answer.allowed else "    no such surface exists")
-    lines.append("  note: surfaces in the boundary sum of B^2 x S^2 are not asked here")
+    lines = []
+    for answer in answers:
+        lines += [f"  in {answer.name} ({answer.scope}): total genus at least {answer.least_genus} "
+                  "for a surface with no closed components",
+                  f"    a connected surface of genus {answer.genus} (Euler characteristic {answer.euler_characteristic}):"]
+        lines += [f"      {b.statement}: {b.lhs} >= {b.rhs} {'holds' if b.holds else 'FAILS'}" for b in answer.bounds]
+        lines.append("      allowed by s" if answer.allowed else
+                     "      no such surface exists" + ("" if answer.scope == "every surface" else f" ({answer.scope})"))
+    lines.append("  note: in B^2 x S^2 a surface that slides over a handle changes the approximations L(k); "
+                 "no bound is claimed for such surfaces")
     return lines
