@@ -88,6 +88,10 @@ class NotNullHomologousError(DiagramError):
     """s of a link in a connected sum of S¹×S² asked for a link that is not null-homologous."""
 
 
+class NotTwoDivisibleError(DiagramError):
+    """Khovanov homology of a link in a connected sum of S¹×S² asked for a link that is not 2-divisible."""
+
+
 class NameInUseError(DiagramError):
     """A name the caller chose for something new is already taken."""
 

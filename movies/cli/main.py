@@ -90,7 +90,7 @@ def build_parser() -> argparse.ArgumentParser:
     inv.add_argument("--bar-natan", action="store_true", help="also Bar-Natan homology over F[H]")
     inv.add_argument("--classical", action="store_true", help="only the classical invariants (no homology)")
     inv.add_argument("--twists", type=_whole_number, metavar="K", default="3",
-                     help="for a diagram with handles: compute s(L(k)) for |k| up to K (default 3)")
+                     help="for a diagram with handles: compute s and Khovanov homology of L(k) for |k| up to K (default 3)")
     _limit_option(inv)
     inv.set_defaults(run=_run_invariants)
 
@@ -272,9 +272,13 @@ def _run_invariants(args: argparse.Namespace) -> int:
 
 
 def _run_handles(args: argparse.Namespace, label: str, link, fields: list[str]) -> int:
-    """``movies invariants`` of a link in #ʳ S¹×S²: its class and s of its twisted approximations."""
-    from movies.homology.approximations import NotNullHomologousError, s_of_handles
-    from movies.report.invariants import handles_text
+    """``movies invariants`` of a link in #ʳ S¹×S²: its class, s and Khovanov homology of its twisted
+    approximations; with ``--classical``, ``--reduced`` or ``--bar-natan`` also every L(k) as a link in S³."""
+    from movies.diagram.handles import twisted
+    from movies.homology.approximations import (NotNullHomologousError, NotTwoDivisibleError, khovanov_of_handles,
+                                                s_of_handles)
+    from movies.invariants.summary import classical_invariants
+    from movies.report.invariants import handles_text, invariants_text, khovanov_tables_text
 
     twists = _number(args.twists, "--twists")
     if twists < 1:
@@ -283,18 +287,46 @@ def _run_handles(args: argparse.Namespace, label: str, link, fields: list[str]) 
         "handles": len(link.gates), "class": list(link.homology_class()),
         "null_homologous": link.null_homologous(), "two_divisible": link.two_divisible(),
         "null_homologous_orientations": [list(o) for o in link.null_homologous_orientations()],
-        "s": None, "s_note": "",
+        "s": None, "s_note": "", "khovanov": None, "khovanov_note": "",
     }
+    ks = sorted(range(-twists, twists + 1), key=lambda k: (k < 0, abs(k)))
     if args.classical:
-        facts["s_note"] = "not computed (--classical)"
+        facts["s_note"] = facts["khovanov_note"] = "not computed (--classical)"
     else:
-        try:
-            with _progress("approximations") as _:
+        with _progress("approximations") as _:
+            try:
                 found = s_of_handles(link, fields, most=twists)
-            facts["s"] = {field: sequence.as_json() for field, sequence in found.items()}
-        except NotNullHomologousError as err:
-            facts["s_note"] = str(err)
-    print(json.dumps(facts) if args.json else handles_text(label, facts))
+                facts["s"] = {field: sequence.as_json() for field, sequence in found.items()}
+                ks = sorted(set().union(*(sequence.values for sequence in found.values())),
+                            key=lambda k: (k < 0, abs(k)))
+            except NotNullHomologousError as err:
+                facts["s_note"] = str(err)
+            try:
+                facts["khovanov"] = {"Q": [t.as_json() for t in khovanov_of_handles(link, sorted(ks), "Q")]}
+            except NotTwoDivisibleError as err:
+                facts["khovanov_note"] = str(err)
+    approximations = []
+    if args.classical or args.reduced or args.bar_natan:
+        for k in sorted(ks):
+            diagram = twisted(link, k)
+            entry = {"k": k, **classical_invariants(diagram)}
+            if not args.classical and not diagram.is_empty():
+                from movies.homology.summary import homology_summary
+
+                entry.update(homology_summary(diagram, fields, args.reduced, args.bar_natan))
+            approximations.append(entry)
+        facts["approximations"] = approximations
+    if args.json:
+        print(json.dumps(facts))
+        return EXIT_OK
+    lines = [handles_text(label, facts)]
+    if facts["khovanov"] is not None:
+        lines += khovanov_tables_text("Q", facts["khovanov"]["Q"])
+    elif facts["khovanov_note"] and not args.classical:
+        lines.append(f"  Kh               {facts['khovanov_note']}")
+    for entry in approximations:
+        lines.append(invariants_text(f"L({entry['k']})", {key: v for key, v in entry.items() if key != "k"}))
+    print("\n".join(lines))
     return EXIT_OK
 
 

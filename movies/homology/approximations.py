@@ -33,10 +33,11 @@ from dataclasses import dataclass
 from typing import Sequence
 
 from movies.diagram.handles import HandleDiagram, twisted
-from movies.errors import DiagramError, InternalError, NotNullHomologousError
+from movies.errors import DiagramError, InternalError, NotNullHomologousError, NotTwoDivisibleError
 from movies.homology.links import link_s_values
 
-__all__ = ["Limit", "SSequence", "NotNullHomologousError", "s_of_handles"]
+__all__ = ["Limit", "SSequence", "KhovanovTable", "NotNullHomologousError", "NotTwoDivisibleError", "s_of_handles",
+           "khovanov_of_handles", "twist_normalisation"]
 
 
 @dataclass(frozen=True)
@@ -142,3 +143,97 @@ def _judge(field: str, values: dict[int, int], width: int) -> SSequence:
     minus = Limit(ceiling, ceiling, minus_at) if minus_at is not None else Limit(values[bottom], ceiling)
     return SSequence(field, dict(sorted(values.items(), key=lambda item: (item[0] < 0, abs(item[0])))), floor,
                      ceiling, plus, minus)
+
+
+@dataclass(frozen=True)
+class KhovanovTable:
+    """Kh(L(k)) over one field, normalised at the twist regions, and where it agrees with its neighbour.
+
+    ``stable`` lists the homological degrees in which this table equals the one for the computed
+    k next to it on the way to 0 (k − 1 for k > 0, k + 1 for k < 0); empty for k = 0.
+    """
+
+    k: int
+    ranks: dict[tuple[int, int], int]
+    stable: tuple[int, ...]
+
+    def as_json(self) -> dict:
+        return {"k": self.k, "ranks": [[i, j, r] for (i, j), r in sorted(self.ranks.items())],
+                "stable_degrees": list(self.stable)}
+
+
+def twist_normalisation(link: HandleDiagram, k: int | Sequence[int]) -> tuple[int, int]:
+    """The shift (h, q) that takes the usual Khovanov grading of L(k) to the one in which the
+    identity resolution of every twist region sits in bidegree (0, 0).
+
+    The usual grading shifts the bracket by [−n₋]{n₊ − 2n₋} over all crossings; here the crossings
+    outside the twist regions keep that shift, and each twist region's own crossings are shifted
+    so that the resolution that leaves its strands parallel (the 0-smoothing of a right-handed
+    twist, the 1-smoothing of a left-handed one) is in degree (0, 0). A full twist crosses each
+    pair of strands twice: positively for a right-handed twist on strands running the same way.
+
+    >>> from movies.diagram.handles import fibers
+    >>> twist_normalisation(fibers(1, 1), 2), twist_normalisation(fibers(1, 1), -2)
+    ((4, 8), (-4, -8))
+    """
+    ks = [k] * len(link.gates) if isinstance(k, int) else list(k)
+    dh = dq = 0
+    for directions, turns in zip(link.directions, ks):
+        same = sum(1 for i, a in enumerate(directions) for b in directions[i + 1:] if a == b)
+        opposite = len(directions) * (len(directions) - 1) // 2 - same
+        agree, against = 2 * abs(turns) * same, 2 * abs(turns) * opposite
+        positive, negative = (agree, against) if turns > 0 else (against, agree)
+        identity = 0 if turns >= 0 else agree + against  # bracket degree of the parallel resolution
+        dh += negative - identity
+        dq += 2 * negative - positive - identity
+    return dh, dq
+
+
+def khovanov_of_handles(link: HandleDiagram, ks: Sequence[int], field: str = "Q") -> list[KhovanovTable]:
+    """Kh(L(k)) for each k, normalised so that each twist region's identity resolution is in
+    bidegree (0, 0), with the homological degrees that agree with the neighbouring k marked.
+
+    As k grows the tables settle in more and more homological degrees; the marks say which
+    degrees agree across the computed range, not that they stay so beyond it.
+
+    Parameters
+    ----------
+    link : HandleDiagram
+        A 2-divisible link in #ʳ S¹×S² (an even number of strands through every handle).
+    ks : sequence of int
+        The k to compute.
+    field : str
+        ``"Q"`` or ``"F<p>"``.
+
+    Returns
+    -------
+    list of KhovanovTable
+        In the order of ``ks``.
+
+    >>> from movies.diagram.handles import fibers
+    >>> [(t.k, sorted(t.ranks), t.stable) for t in khovanov_of_handles(fibers(1, 1), [1, 2])]
+    [(1, [(0, -2), (0, 0), (2, 2), (2, 4)], ()), (2, [(0, -2), (0, 0), (2, 2), (3, 6), (4, 6), (4, 8)], (0, 1))]
+    """
+    from movies.homology.khovanov import khovanov_homology
+
+    if not link.two_divisible():
+        raise NotTwoDivisibleError(
+            "Khovanov homology of a link in #^r S^1 x S^2 is defined when an even number of strands passes "
+            "through every handle; strands through each handle here: "
+            + ", ".join(str(len(g.edges)) for g in link.gates))
+    tables: dict[int, dict[tuple[int, int], int]] = {}
+    for k in ks:
+        dh, dq = twist_normalisation(link, k)
+        tables[k] = {(i + dh, j + dq): r for (i, j), r in khovanov_homology(twisted(link, k), field).items() if r}
+    result = []
+    for k in ks:
+        before = k - 1 if k > 0 else k + 1
+        stable: tuple[int, ...] = ()
+        if k != 0 and before in tables:
+            present = {i for i, _ in tables[k]} | {i for i, _ in tables[before]}
+            degrees = range(min(present), max(present) + 1) if present else range(0)  # zero rows agree too
+            stable = tuple(i for i in degrees
+                           if {j: r for (h, j), r in tables[k].items() if h == i}
+                           == {j: r for (h, j), r in tables[before].items() if h == i})
+        result.append(KhovanovTable(k, tables[k], stable))
+    return result

@@ -154,3 +154,37 @@ def handles_text(label: str, facts: dict) -> str:
                         f"up to k = {far})")
             lines.append(f"  {name} over {field:<10} {text}")
     return "\n".join(lines)
+
+
+def khovanov_tables_text(field: str, tables: list[dict]) -> list[str]:
+    """Kh(L(k)) as tables of ranks, one per k (JSON of :class:`~movies.homology.approximations.KhovanovTable`).
+
+    Columns are homological degrees h, rows quantum degrees q (highest first); ``*`` marks a
+    degree in which the table equals the one for the k next to it on the way to 0.
+
+    >>> for line in khovanov_tables_text("Q", [{"k": 1, "ranks": [[0, -2, 1], [0, 0, 1], [2, 2, 1], [2, 4, 1]],
+    ...                                         "stable_degrees": [0, 1]}]):
+    ...     print(line)
+      Kh(L(k)) over Q, each twist region's identity resolution in bidegree (0, 0); * = as for the k next to it towards 0
+        k = 1        h   0*   1*   2
+                 q = 4             1
+                 q = 2             1
+                 q = 0   1
+                q = -2   1
+    """
+    lines = [f"  Kh(L(k)) over {field}, each twist region's identity resolution in bidegree (0, 0); "
+             "* = as for the k next to it towards 0"]
+    for table in tables:
+        ranks = {(i, j): r for i, j, r in table["ranks"]}
+        if not ranks:
+            lines.append(f"    k = {table['k']:<6}  0")
+            continue
+        hs = range(min(i for i, _ in ranks), max(i for i, _ in ranks) + 1)
+        qs = sorted({j for _, j in ranks}, reverse=True)
+        marks = set(table["stable_degrees"])
+        head = "".join(f"{h:>4}{'*' if h in marks else ' '}" for h in hs)
+        lines.append((f"    k = {table['k']}".ljust(14) + "   h" + head).rstrip())
+        for q in qs:
+            row = "".join(f"{ranks.get((h, q), ''):>4} " for h in hs)
+            lines.append((f"q = {q}".rjust(18) + row).rstrip())
+    return lines

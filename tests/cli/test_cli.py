@@ -142,3 +142,23 @@ def test_invariants_of_a_link_with_handles(capsys):
     assert code == 0 and "s is defined for null-homologous links only" in out
     code, _, err = run(capsys, "invariants", "3_1 with handle across 1 9")
     assert code == 2 and "handle 1: edge 9 is not in the diagram" in err
+
+
+def test_khovanov_tables_and_the_approximations_of_a_link_with_handles(capsys):
+    code, out, _ = run(capsys, "invariants", "fibers(1, 1)", "--json", "--twists", "2")
+    facts = json.loads(out)
+    tables = {t["k"]: t for t in facts["khovanov"]["Q"]}
+    # the k computed for s, each with its table; Rasmussen 2010 / Khovanov 2000: Kh of the 2-component unlink,
+    # L(0), is (q + 1/q)^2 in degree 0
+    assert sorted(tables) == [-1, 0, 1, 2] and tables[0]["ranks"] == [[0, -2, 1], [0, 0, 2], [0, 2, 1]]
+    assert tables[2]["stable_degrees"] == [0, 1] and tables[0]["stable_degrees"] == []
+    code, out, _ = run(capsys, "invariants", "fibers(1, 1)", "--twists", "1")
+    assert "Kh(L(k)) over Q, each twist region's identity resolution in bidegree (0, 0)" in out
+    assert "    k = 1        h   0    1*   2" in out
+    # --classical: no homology, and each L(k) as a link in S^3 (lk of F(1, 1)(k) is -k: k negative crossings)
+    code, out, _ = run(capsys, "invariants", "fibers(1, 1)", "--twists", "1", "--classical", "--json")
+    facts = json.loads(out)
+    assert facts["khovanov"] is None and facts["s"] is None
+    assert [(a["k"], a["linking_matrix"][0][1]) for a in facts["approximations"]] == [(-1, 1), (0, 0), (1, -1)]
+    code, out, _ = run(capsys, "invariants", "fibers(1, 1)", "--twists", "1", "--reduced")
+    assert code == 0 and out.count("reduced") >= 3 and "L(-1)" in out

@@ -174,3 +174,60 @@ def test_the_clasp_decides_which_limit_is_certified():
         assert [found.values[k] for k in (0, 1, 2, 3)] == [0, 0, 0, 0]
         assert (found.plus.low, found.plus.high, found.plus.certified) == (-2, 0, False), field
         assert found.minus == approximations.Limit(2, 2, -1), field
+
+
+# LinkInfo's two-component (2, 2k) torus links, k = 1..4; which orientation is F(1, 1)(k) is read off the
+# linking_matrix column (-k) and the chirality off the Jones polynomial, never assumed
+TORUS_2_2K = {1: "L2a1", 2: "L4a1", 3: "L6a3", 4: "L8a14"}
+
+
+def _table_khovanov_of_f11(k):
+    """Kh of F(1, 1)(k) in the usual grading, from LinkInfo's khovanov_polynomial column."""
+    from homology.helpers import ranks_of
+    from movies.diagram.tables import table_row
+    from movies.invariants.jones import jones_polynomial
+    from support.knotinfo_columns import parse_matrix
+
+    ours = jones_polynomial(twisted(fibers(1, 1), k))
+    for orientation in ("{0}", "{1}"):
+        row = table_row(TORUS_2_2K[k] + orientation)
+        # LinkInfo column khovanov_polynomial; the mirror has (i, j) -> (-i, -j) over Q (Khovanov 2000, Cor. 11)
+        ranks = ranks_of(row["khovanov_polynomial"])
+        for candidate, lk in ((ranks, 1), ({(-i, -j): r for (i, j), r in ranks.items()}, -1)):
+            # LinkInfo column linking_matrix: the off-diagonal entry is the linking number (negated by a mirror)
+            if lk * parse_matrix(row["linking_matrix"])[0][1] != -k:
+                continue
+            image = jones_polynomial(parse_diagram(f"{'mirror(' if lk < 0 else ''}{TORUS_2_2K[k]}{orientation}"
+                                                   f"{')' if lk < 0 else ''}"))
+            if image == ours:
+                return candidate
+    raise AssertionError(f"F(1, 1)({k}) not found among the rows of {TORUS_2_2K[k]}")
+
+
+def test_khovanov_of_the_balanced_fibers_against_the_link_table():
+    from movies.homology.approximations import khovanov_of_handles
+
+    computed = {t.k: t for t in khovanov_of_handles(fibers(1, 1), [1, 2, 3, 4])}
+    shifted = {}
+    for k in (1, 2, 3, 4):
+        # the normalisation by hand: F(1, 1)(k) has 2k negative crossings, all in the twist region, whose identity
+        # resolution is the all-0 one; the usual grading shifts the bracket by [-2k]{-4k}, so undo that
+        shifted[k] = {(i + 2 * k, j + 4 * k): r for (i, j), r in _table_khovanov_of_f11(k).items()}
+        assert computed[k].ranks == shifted[k], k
+    for k in (2, 3, 4):
+        # the stable marks, read off the table's own values: the degrees where k and k - 1 agree
+        rows = lambda table, i: {j: r for (h, j), r in table.items() if h == i}  # noqa: E731
+        span = range(0, 2 * k + 1)
+        assert computed[k].stable == tuple(i for i in span if rows(shifted[k], i) == rows(shifted[k - 1], i))
+        # and they grow with k: the homology of the (2, 2k) torus link settles in degrees below 2k - 2
+        assert set(range(2 * k - 2)) <= set(computed[k].stable)
+
+
+def test_khovanov_needs_a_two_divisible_link():
+    from movies.errors import NotTwoDivisibleError
+    from movies.homology.approximations import khovanov_of_handles
+
+    with pytest.raises(NotTwoDivisibleError, match="strands through each handle here: 3"):
+        khovanov_of_handles(fibers(2, 1), [0])
+    # 2-divisible but not null-homologous: Kh is defined, s is not
+    assert khovanov_of_handles(fibers(2, 0), [1])[0].ranks
