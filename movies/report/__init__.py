@@ -9,11 +9,21 @@ bounds questions, the invariants of a diagram. Nothing below it imports it.
 - :mod:`.invariants`, :mod:`.questions`: the other commands' text layouts.
 
 >>> from movies.checker.replay import check_movie
+>>> from movies.report import as_json
 >>> as_json(check_movie("start unknot\\ndeath 1"))["verdict"]
 'verified'
 """
 
-from movies.report.html import html_repr, movie_html
-from movies.report.movie import as_json, as_text
-
 __all__ = ["as_json", "as_text", "movie_html", "html_repr"]
+
+_HOMES = {"as_json": "movies.report.movie", "as_text": "movies.report.movie",
+          "movie_html": "movies.report.html", "html_repr": "movies.report.html"}
+
+
+def __getattr__(name: str):
+    # imported on first use: the page's drawing code (and numpy) only when a page is asked for
+    if name in _HOMES:
+        import importlib
+
+        return getattr(importlib.import_module(_HOMES[name]), name)
+    raise AttributeError(f"module 'movies.report' has no attribute {name!r}")
