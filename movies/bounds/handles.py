@@ -40,7 +40,8 @@ from movies.diagram.handles import HandleDiagram, twisted
 from movies.homology.approximations import s_of_handles
 from movies.homology.links import link_s_values
 
-__all__ = ["HandleSurfaceAnswer", "surface_questions", "S1XB3", "B2XS2"]
+__all__ = ["HandleSurfaceAnswer", "surface_questions", "S1XB3", "B2XS2", "HandlePlace", "handle_place", "movie_bounds",
+           "MOVIE_TWISTS"]
 
 S1XB3 = "S^1 x B^3"
 B2XS2 = "B^2 x S^2"
@@ -143,3 +144,122 @@ def surface_questions(link: HandleDiagram, genus: int = 0, fields=("Q", "F2"),
         # c >= 1 components of total genus g: chi = 2c - 2g - b <= 1 - best; c = 1 is the weakest
         answer.least_genus = max(0, -((components - 1 - best[where]) // 2))
     return answers[S1XB3], answers[B2XS2]
+
+
+# ---------------------------------------------------------------------- a movie with handles
+
+#: the k for which a movie with handles is judged in S³, unless asked otherwise
+MOVIE_TWISTS = (-2, -1, 0, 1, 2)
+
+SOURCE_PRODUCT = ("Beliakova–Wehrli 2008, for the movie in S^3 x I between the twisted approximations: a movie that "
+                  "keeps off the handles is, for every k, a movie from L0(k) to L1(k) with the same surface")
+
+
+@dataclass(frozen=True)
+class HandlePlace:
+    """Where the surface of a movie with handles lives, named for the link on its boundary.
+
+    ``base`` is the 4-manifold; ``also`` other 4-manifolds the same movie is a surface in;
+    ``caps`` the fiber caps per handle, (one way, the other way); ``boundary_class`` the class of
+    the start in H₁(#ʳ S¹×S²), which decides the surface's class in H₂(X, ∂X) (the map between
+    them is injective for both boundary sums).
+    """
+
+    base: str
+    reading: str
+    handles: int
+    also: tuple[str, ...] = ()
+    caps: tuple[tuple[int, int], ...] = ()
+    boundary_class: tuple[int, ...] = ()
+    definite: None = None
+
+    @property
+    def name(self) -> str:
+        return self.base
+
+    @property
+    def homology_class(self) -> list[int]:
+        return list(self.boundary_class)
+
+    @property
+    def square(self) -> int:
+        return 0  # the intersection forms of the product and of both boundary sums vanish
+
+    @property
+    def null_homologous(self) -> bool:
+        return not any(self.boundary_class)
+
+    def sentence(self) -> str:
+        also = "".join(f" and in {name}" for name in self.also)
+        return f"in {self.base}{also}, {self.reading}"
+
+    def as_json(self) -> dict:
+        return {"lives_in": self.base, "also_in": list(self.also), "reading": self.reading, "definite": None,
+                "blowups": [], "handles": self.handles, "fiber_caps": [list(c) for c in self.caps],
+                "class": self.homology_class, "square": self.square, "null_homologous": self.null_homologous}
+
+
+def _sum_name(manifold: str, r: int) -> str:
+    return manifold if r == 1 else f"\u266e^{r} {manifold}"
+
+
+def handle_place(handles: int, end_empty: bool, lives: str | None, caps: tuple[tuple[int, int], ...],
+                 boundary_class: tuple[int, ...]) -> HandlePlace:
+    """Name the 4-manifold of a movie with ``handles`` handles.
+
+    A movie that keeps off the handles is a surface in M_r × I. When it ends empty that collar
+    lies in both boundary sums, so without a statement of its own the movie is a surface in
+    ♮ʳ S¹×B³ and in ♮ʳ B²×S²; fiber caps pass through the 2-handles, so only ♮ʳ B²×S².
+
+    >>> handle_place(1, True, None, (), (0,)).sentence()
+    'in S^1 x B^3 and in B^2 x S^2, bounded by the start'
+    >>> handle_place(2, False, None, (), (0, 0)).name
+    '#^2 S^1 x S^2 x I'
+    """
+    product = ("S^1 x S^2" if handles == 1 else f"#^{handles} S^1 x S^2") + " x I"
+    if not end_empty or lives == "MxI":
+        return HandlePlace(product, "from the start to the end", handles, (), caps, boundary_class)
+    reading = "bounded by the start"
+    if any(up or down for up, down in caps) or lives == "B2xS2":
+        return HandlePlace(_sum_name(B2XS2, handles), reading, handles, (), caps, boundary_class)
+    if lives == "S1xB3":
+        return HandlePlace(_sum_name(S1XB3, handles), reading, handles, (), caps, boundary_class)
+    return HandlePlace(_sum_name(S1XB3, handles), reading, handles, (_sum_name(B2XS2, handles),), caps,
+                       boundary_class)
+
+
+def movie_bounds(start: HandleDiagram, end, euler: int, meets_start: bool, meets_end: bool,
+                 ks=MOVIE_TWISTS, fields=("Q", "F2")) -> tuple[list[Bound], dict]:
+    """The S³ inequalities, for every k in ``ks``, for a movie with handles from ``start`` to ``end``.
+
+    ``end`` is the last frame of the part in M_r × I: a :class:`HandleDiagram`, or an empty
+    diagram; ``euler``, ``meets_start`` and ``meets_end`` describe that part of the surface.
+    For each k the movie is one in S³ from start(k) to end(k), so Beliakova–Wehrli's
+    inequalities hold between their s (and their mirrors'). For a movie that ends in fibers,
+    capped afterwards, this is the inequality of the design notes through the fibers.
+
+    Returns the bounds, each statement starting with its k, and {k: {"start": s, "end": s}}.
+
+    >>> from movies.diagram.constructors import empty
+    >>> from movies.diagram.handles import fibers
+    >>> bounds, values = movie_bounds(fibers(1, 1), empty(), euler=0, meets_start=True, meets_end=False, ks=(0, 1),
+    ...                               fields=("Q",))
+    >>> [(b.statement.split(":")[0], b.lhs, b.rhs, b.holds) for b in bounds]
+    [('k = 0', 2, 0, True), ('k = 0', 2, 0, True), ('k = 1', 2, 0, True), ('k = 1', 0, 0, True)]
+    """
+    from movies.bounds.inequalities import cobordism_bounds
+
+    def s_of(link, k) -> tuple[dict, dict]:
+        if not isinstance(link, HandleDiagram):  # the empty diagram
+            return {f: 1 for f in fields}, {f: 1 for f in fields}
+        diagram = twisted(link, k)
+        return link_s_values(diagram, fields), link_s_values(mirror(diagram), fields)
+
+    bounds: list[Bound] = []
+    values: dict = {}
+    for k in ks:
+        (a, ma), (b, mb) = s_of(start, k), s_of(end, k)
+        values[k] = {"start": a, "end": b, "mirror_start": ma, "mirror_end": mb}
+        for bound in cobordism_bounds(a, b, ma, mb, euler, meets_start, meets_end):
+            bounds.append(Bound(f"k = {k}: {bound.statement}", bound.lhs, bound.rhs, bound.field, SOURCE_PRODUCT))
+    return bounds, values

@@ -15,7 +15,8 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from movies.bounds.verdicts import surface_bounds
+from movies.bounds.handles import movie_bounds
+from movies.bounds.verdicts import BoundsReport, surface_bounds
 from movies.checker import search
 from movies.checker.distinguish import first_difference
 from movies.checker.result import CheckResult, Checkpoint, Claim, Finding
@@ -24,7 +25,7 @@ from movies.errors import InternalError, InternalInconsistency, MoviesError
 from movies.invariants.alexander import alexander_polynomial, determinant
 from movies.invariants.jones import jones_polynomial
 from movies.invariants.signature import signature
-from movies.language.movie import Statement
+from movies.language.movie import MANIFOLDS, Statement
 from movies.surface.tracker import Surface, surface_of
 from movies.wording import plural
 
@@ -90,7 +91,10 @@ class _Judging:
 
     def bounds(self) -> None:
         result = self.result
-        report = surface_bounds(result.movie.start, result.frames[-1], result.surface)
+        if result.movie.handles is not None:
+            report = self.handle_bounds()
+        else:
+            report = surface_bounds(result.movie.start, result.frames[-1], result.surface)
         result.bounds = report
         violated = report.violated
         if not violated:
@@ -110,6 +114,42 @@ class _Judging:
             "so one of the isotopy claims the movie goes on from is false",
             listed,
         ))
+
+    def handle_bounds(self) -> BoundsReport:
+        """For a movie with handles: the S³ inequalities between the twisted approximations, for
+        every k of :data:`~movies.bounds.handles.MOVIE_TWISTS`, of the part of the surface in the
+        product (up to the fiber caps)."""
+        result = self.result
+        report = BoundsReport()
+        if result.surface is None:
+            report.notes.append("no surface: the movie stops at an invalid step")
+            return report
+        lives = result.movie.lives
+        if lives in ("S1xB3", "B2xS2") and not result.frames[-1].is_empty():
+            last = result.movie.statements[-1] if result.movie.statements else result.movie.start_statement
+            result.findings.append(Finding("false", None, last.line, last.column,
+                                           f"the movie says its surface lives in the boundary sum of "
+                                           f"{MANIFOLDS[lives]}, but it does not end empty", ""))
+        cut = result.caps[0][0] if result.caps else len(result.transitions)
+        part = surface_of(sorted(result.movie.start.components), result.transitions[:cut])
+        end = result.handle_frames[cut] if result.handle_frames[cut] is not None else result.frames[cut]
+        if not part.orientable or not part.oriented_by_start:
+            report.notes.append("the surface is not oriented compatibly with the start, so the s-inequalities do not "
+                                "apply")
+            return report
+        report.bounds, values = movie_bounds(result.movie.handles, end, part.euler_characteristic,
+                                             part.every_component_meets_start, part.every_component_meets_end)
+        report.s = {"start": values[0]["start"], "end": values[0]["end"]}
+        report.notes.append(
+            "s of the start and the end are those of the diagrams as drawn (k = 0); the bounds hold for every k, since "
+            "a movie that keeps off the handles is, for every k, a movie in S^3 between the twisted approximations"
+            + (f"; the end is the frame before the fiber caps (step {cut + 1}), and each cap adds a disk" if result.caps
+               else ""))
+        tight = [b for b in report.bounds if b.tight]
+        if tight and part.connected:
+            report.least_genus.append(f"the inequality '{tight[0].statement}' is an equality: no connected oriented "
+                                      "surface of this kind between these ends has larger Euler characteristic")
+        return report
 
     # -------------------------------------------------------------- checkpoints
 

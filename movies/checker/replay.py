@@ -24,6 +24,7 @@ from movies.checker import search
 from movies.checker.distinguish import first_difference
 from movies.checker.judge import Expectation, judge
 from movies.checker.result import REFUTED, CheckResult, Finding, StepRecord
+from movies.diagram.handles import HandleDiagram, capped, carried, fiber_of, keep_off
 from movies.diagram.model import Diagram
 from movies.diagram.steps import MoveRecord, Places, Transition, growth, identity_transition, perform, places_named
 from movies.errors import InputError, LocatedLimitError, MoveError
@@ -51,6 +52,9 @@ class _Replay:
         self.frame = movie.start
         self.result.frames.append(self.frame)
         self.number = 0
+        self.handles = movie.handles  # the current frame's handles (a movie in #ʳ S¹×S²), or None
+        if movie.handles is not None:
+            self.result.handle_frames.append(self.handles)
 
     def find(self, kind: str, statement: Statement, message: str, evidence: str = "", step: int | None = None,
              about: str = "") -> None:
@@ -84,6 +88,8 @@ class _Replay:
     def step(self, statement: Statement) -> bool:
         before = self.frame
         try:
+            if self.movie.handles is not None:
+                self.admit(statement)
             if statement.kind == "simplify":
                 self.result.places.append(Places())
                 new, transition, certified, note, found = self.simplify(statement)
@@ -98,6 +104,8 @@ class _Replay:
                 new, transition, note, self.result.places[-1] = (outcome.diagram, outcome.transition, outcome.note,
                                                                   outcome.places)
                 certified, found = True, ()
+                if self.movie.handles is not None:
+                    next_handles = self.carry(record, outcome)
         except MoveError as err:
             self.find("invalid", statement, f"step {self.number} ({statement.kind}) does not apply: {err}",
                       f"frame {self.number - 1} has {_names_in(before)}")
@@ -106,7 +114,54 @@ class _Replay:
         self.result.frames.append(new)
         self.result.transitions.append(transition)
         self.record(statement, certified, note, found)
+        if self.movie.handles is not None:
+            if statement.kind not in ("simplify", "isotopic"):
+                self.handles = next_handles
+            self.result.handle_frames.append(self.handles)
         return True
+
+    # -------------------------------------------------------------- handles
+
+    def admit(self, statement: Statement) -> None:
+        """Refuse, before it is made, a step a movie with handles cannot take."""
+        kind = statement.kind
+        if self.result.caps and kind != "cap":
+            raise MoveError("after a fiber cap only more caps may follow: the surface's part in the product ends at "
+                            "the fibers, which the cocores of the 2-handles cap off")
+        if kind == "twist":
+            raise MoveError("a twist step in a movie with handles is not offered: at a gate it is a Dehn twist along "
+                            "the handle's sphere, a diffeomorphism and not an isotopy (see the language reference), "
+                            "and away from the gates it would add blow-ups to the product")
+        if kind == "isotopic":
+            raise MoveError("isotopy claims in a movie with handles are not offered yet: write the Reidemeister moves "
+                            "(or 'simplify'), which the checker keeps off the gates")
+        if self.handles is None and kind == "cap":
+            raise MoveError("no handle has a strand through it any more: there is no fiber to cap")
+        if kind == "death":
+            component = statement.record.component
+            if component in self.frame.components:
+                edges = set(self.frame.components[component])
+                for index, gate in enumerate(self.handles.gates if self.handles else (), start=1):
+                    if edges & set(gate.edges):
+                        raise MoveError(f"component {component} passes through handle {index}, so it bounds no disk "
+                                        "there; a fiber is capped with 'cap fiber C' in the boundary sum of B^2 x S^2")
+        if kind == "cap":
+            if self.movie.lives != "B2xS2":
+                raise MoveError("a fiber cap is a disk through a 2-handle of the boundary sum of B^2 x S^2: say "
+                                "'in B2xS2' in the movie")
+            fiber_of(self.handles, statement.record.component)
+
+    def carry(self, record: MoveRecord, outcome) -> HandleDiagram | None:
+        """The handles after a step that kept off them (or after a fiber cap)."""
+        if self.handles is None:
+            return None
+        if record.kind == "cap":
+            handle, direction = fiber_of(self.handles, record.component)
+            self.result.caps.append((self.number - 1, handle, direction))
+            return capped(self.handles, record.component, outcome.diagram)
+        places = outcome.places
+        keep_off(self.handles, places.edges, places.crossings, f"'{record}'")
+        return carried(self.handles, outcome.diagram)
 
     def check_size(self, statement: Statement, record: MoveRecord, before: Diagram) -> None:
         """Refuse a move whose frame would be past the limits, before it is made."""
@@ -122,6 +177,8 @@ class _Replay:
         target = statement.args
         outcome = search.simplify_frame(self.frame, target, self.budget)
         found = tuple(outcome.moves)
+        if self.handles is not None:
+            self.handles_after(outcome.moves)
         if outcome.reached:
             note = f"found {plural(len(found), 'Reidemeister move')}"
         else:
@@ -130,6 +187,16 @@ class _Replay:
             self.find("unproved", statement, f"step {self.number}: {note}; the movie goes on from the diagram it reached")
         transition = identity_transition("simplify", sorted(self.frame.components))
         return outcome.diagram, transition, outcome.reached, note, found
+
+    def handles_after(self, moves) -> None:
+        """Carry the handles along the moves a search found, refusing any that touches a gate."""
+        frame, handles = self.frame, self.handles
+        for move in moves:
+            done = perform(move, frame)
+            places = done.places
+            keep_off(handles, places.edges, places.crossings, f"step {self.number}: the search's move '{move}'")
+            frame, handles = done.diagram, carried(handles, done.diagram)
+        self.handles = handles
 
     def isotopic(self, statement: Statement):
         given = statement.args["diagram"]

@@ -15,6 +15,7 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 
 from movies.bounds.ambient import Ambient
+from movies.bounds.handles import HandlePlace, handle_place
 from movies.bounds.verdicts import BoundsReport, surface_ambient
 from movies.diagram.model import Diagram
 from movies.diagram.steps import Places, Transition
@@ -102,9 +103,20 @@ class CheckResult:
     transitions: list[Transition] = field(default_factory=list)
     places: list[Places] = field(default_factory=list)  # where each step acts, in the frame before it
     bounds: BoundsReport | None = None  # once judged
+    #: for a movie with handles, each frame's handles (None once every gate is capped off)
+    handle_frames: list = field(default_factory=list)
+    #: for a movie with handles: the fiber caps, (step index, handle, direction) each
+    caps: list[tuple[int, int, int]] = field(default_factory=list)
 
-    def ambient(self) -> Ambient:
+    def ambient(self) -> Ambient | HandlePlace:
         """The 4-manifold the surface lives in, named for its boundary link."""
+        handles = self.movie.handles
+        if handles is not None:
+            caps = [[0, 0] for _ in handles.gates]
+            for _, handle, direction in self.caps:
+                caps[handle - 1][0 if direction > 0 else 1] += 1
+            return handle_place(len(handles.gates), self.frames[-1].is_empty(), self.movie.lives,
+                                tuple(tuple(c) for c in caps), handles.homology_class())
         return surface_ambient(self.movie.start, self.frames[-1], self.surface)
 
     @property

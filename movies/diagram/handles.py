@@ -38,7 +38,8 @@ from movies.diagram.moves import twist
 from movies.diagram.moves.twist import arcs_tangled, gate_arcs, gate_path
 from movies.errors import DiagramError, MoveError
 
-__all__ = ["Gate", "HandleDiagram", "handle_diagram", "regated", "fibers", "closed_braid", "twisted"]
+__all__ = ["Gate", "HandleDiagram", "handle_diagram", "regated", "fibers", "closed_braid", "twisted",
+           "gate_faces", "keep_off", "carried", "fiber_of", "capped"]
 
 #: how many orientations the search for null-homologous ones tries at most (2^components)
 MOST_ORIENTATIONS = 1 << 16
@@ -223,3 +224,125 @@ def twisted(link: HandleDiagram, k: int | Sequence[int]) -> Diagram:
         if amount:
             diagram = twist(diagram, gate.edges, amount, gate.start_face(diagram)).diagram
     return diagram
+
+
+# ---------------------------------------------------------------------- handles along a movie
+
+
+def gate_faces(link: HandleDiagram) -> list[tuple[int, ...]]:
+    """The faces each gate runs through, in order.
+
+    >>> gate_faces(fibers(1, 1))
+    [(1, 2, 3)]
+    """
+    return [tuple(gate_path(link.diagram, gate.edges, gate.start_face(link.diagram))[0]) for gate in link.gates]
+
+
+def keep_off(link: HandleDiagram, edges, crossings, what: str) -> None:
+    """Refuse a step that acts on a gate: on an edge a gate crosses, or at a crossing at the end
+    of such an edge.
+
+    A step that keeps off every gate is, for every k, the same step in S³ between the twisted
+    approximations, which is what makes the S³ inequalities hold for the surface. Whether it also
+    keeps clear of a gate's path through the faces (a band across a face the gate runs through
+    must not cut it) is checked afterwards, by :func:`carried`: the gate must still run through
+    the faces of the new frame across the same edges. Raises :class:`~movies.errors.MoveError`
+    naming the handle.
+
+    >>> keep_off(fibers(1, 1), edges=(2,), crossings=(), what="a band")
+    Traceback (most recent call last):
+    ...
+    movies.errors.MoveError: a band acts on edge 2, which handle 1 crosses (its gate crosses edges 1, 2): a step in a movie with handles keeps off the strands where they pass through a handle
+    """
+    for index, gate in enumerate(link.gates, start=1):
+        where = set(gate.edges)
+        crossed = ", ".join(map(str, gate.edges))
+        hit = where & set(edges)
+        if hit:
+            raise MoveError(f"{what} acts on edge {min(hit)}, which handle {index} crosses (its gate crosses edges "
+                            f"{crossed}): a step in a movie with handles keeps off the strands where they pass "
+                            "through a handle")
+        at = sorted(c for c in crossings if set(link.diagram.crossing(c)) & where)
+        if at:
+            raise MoveError(f"{what} moves crossing {at[0]}, at the end of an edge handle {index} crosses (its gate "
+                            f"crosses edges {crossed}): a step in a movie with handles keeps off the strands where "
+                            "they pass through a handle")
+
+
+def carried(link: HandleDiagram, diagram: Diagram) -> HandleDiagram:
+    """The same handles on the diagram after a step that kept off them, checked again.
+
+    Each gate keeps its edges and the side of its first edge it starts on (sides, unlike face
+    names, survive moves elsewhere). The check fails, with the handle named, when the step cut
+    the gate's path: a band or a finger across a face the gate runs through, on the wrong side
+    of it, leaves the gate's edges in different faces.
+
+    >>> from movies.diagram.moves import birth
+    >>> from movies.diagram.constructors import unlink
+    >>> link = handle_diagram(unlink(3), [([1, 2], None)])  # face 4 holds circle 3, off the gate
+    >>> carried(link, birth(link.diagram, 4)).gates == link.gates
+    True
+    """
+    try:
+        return handle_diagram(diagram, [(gate.edges, diagram.side_face[Side(gate.edges[0], gate.hand)])
+                                        for gate in link.gates])
+    except MoveError as err:
+        raise MoveError(f"the step cuts through a handle's gate: {err}") from None
+
+
+def fiber_of(link: HandleDiagram, component: int) -> tuple[int, int]:
+    """The handle (1, 2, ...) a fiber passes through, and its direction there (+1 or −1).
+
+    A fiber is a crossingless circle that passes through one gate once and through no other.
+    Raises :class:`~movies.errors.MoveError` saying why ``component`` is not one.
+
+    >>> fiber_of(fibers(1, 1), 2)
+    (1, -1)
+    """
+    diagram = link.diagram
+    if component not in diagram.components:
+        raise MoveError(f"component {component} is not in the frame (components: {sorted(diagram.components)})")
+    edges = set(diagram.components[component])
+    if any(set(diagram.crossing(c)) & edges for c in diagram.crossings):
+        raise MoveError(f"component {component} has crossings; a fiber is a crossingless circle through one handle")
+    through = [(index, gate.edges.index(edge), direction)
+               for index, (gate, directions) in enumerate(zip(link.gates, link.directions), start=1)
+               for edge, direction in zip(gate.edges, directions) if edge in edges]
+    if len(through) != 1:
+        said = "no handle" if not through else f"{len(through)} times through the handles"
+        raise MoveError(f"component {component} passes through {said}; a fiber passes through one handle once")
+    index, _, direction = through[0]
+    return index, direction
+
+
+def capped(link: HandleDiagram, component: int, diagram: Diagram) -> HandleDiagram | None:
+    """The handles after the fiber ``component`` is capped off (``diagram`` is the frame without it).
+
+    Its gate no longer crosses that edge; a gate left with no strands is dropped, and None is
+    returned when no gate has strands left.
+
+    >>> from movies.diagram.moves import death
+    >>> link = fibers(1, 1)
+    >>> capped(link, 1, death(link.diagram, 1)).gates
+    (Gate(edges=(2,), hand='R'),)
+    """
+    index, _ = fiber_of(link, component)
+    (edge,) = link.diagram.components[component]
+    kept = []
+    for number, gate in enumerate(link.gates, start=1):
+        if number != index:
+            kept.append((gate.edges, None, Side(gate.edges[0], gate.hand)))
+            continue
+        rest = tuple(e for e in gate.edges if e != edge)
+        if not rest:
+            continue
+        if gate.edges[0] != edge:
+            kept.append((rest, None, Side(rest[0], gate.hand)))
+            continue
+        # the gate began across the capped circle: it now begins in the face it entered next
+        path = gate_path(link.diagram, gate.edges, gate.start_face(link.diagram))[0]
+        left, _ = link.diagram.faces_beside(rest[0])
+        kept.append((rest, None, Side(rest[0], "L" if path[1] == left else "R")))
+    if not kept:
+        return None
+    return handle_diagram(diagram, [(edges, diagram.side_face[side]) for edges, _, side in kept])

@@ -53,6 +53,7 @@ FIELDS = {
     "band": ("first", "second", "face", "names"),
     "birth": ("face", "counterclockwise", "names"),
     "death": ("component",),
+    "cap": ("component",),
     "twist": ("edges", "turns", "start_face", "names"),
 }
 #: every kind of move step
@@ -80,7 +81,7 @@ class MoveRecord:
     >>> MoveRecord("R4", face=1)
     Traceback (most recent call last):
     ...
-    movies.errors.MoveError: a move is one of R1+, R1-, R2+, R2-, R3, band, birth, death, twist, not 'R4'
+    movies.errors.MoveError: a move is one of R1+, R1-, R2+, R2-, R3, band, birth, death, cap, twist, not 'R4'
     """
 
     kind: str
@@ -152,6 +153,8 @@ class MoveRecord:
             text = f"birth{'' if self.counterclockwise else ' cw'} in face {self.face}"
         elif k == "death":
             text = f"death {self.component}"
+        elif k == "cap":
+            text = f"cap fiber {self.component}"
         else:
             text = (f"twist {self.turns:+d} across {' '.join(map(str, self.edges))}"
                     + (f" from face {self.start_face}" if self.start_face is not None else ""))
@@ -233,6 +236,9 @@ _CALL: dict[str, Callable[[Diagram, MoveRecord], object]] = {
     "band": lambda d, r: moves.saddle(d, r.first, r.second, r.face, **_chosen(r)),
     "birth": lambda d, r: moves.birth(d, r.face, r.counterclockwise, **_chosen(r)),
     "death": lambda d, r: moves.death(d, r.component),
+    # a fiber cap removes a crossingless circle as a death does; that it is a fiber of a handle is
+    # checked where the handles are known (the replay)
+    "cap": lambda d, r: moves.death(d, r.component),
     "twist": lambda d, r: moves.twist(d, r.edges, r.turns, r.start_face, **_chosen(r)),
 }
 
@@ -279,6 +285,10 @@ def _outcome(record: MoveRecord, before: Diagram, result) -> Outcome:
     if kind == "death":
         return Outcome(result, Transition("death", ended=(record.component,), deaths=1),
                        Places(edges=tuple(before.components[record.component])), f"component {record.component} dies")
+    if kind == "cap":
+        return Outcome(result, Transition("cap", ended=(record.component,), deaths=1),
+                       Places(edges=tuple(before.components[record.component])),
+                       f"fiber {record.component} is capped off by a cocore of a 2-handle")
     return Outcome(result, identity_transition(kind, sorted(before.components)), _reidemeister_places(record, before))
 
 

@@ -69,18 +69,21 @@ from movies.errors import (
     MoviesError,
 )
 from movies.language.frontend import Lines, check_digits, grammar_text, read_int
-from movies.language.spec import parse_diagram
+from movies.diagram.handles import HandleDiagram
+from movies.language.spec import parse_diagram, read_spec
 
 __all__ = ["Statement", "Movie", "MovieSyntaxError", "MovieInputError", "parse_movie", "STATEMENT_WORDS"]
 
 #: the words a statement can start with
 STATEMENT_WORDS = (
-    "title", "start", "band", "R1", "R2", "R3", "birth", "death", "twist", "simplify", "isotopic",
-    "expect", "surface", "budget",
+    "title", "start", "band", "R1", "R2", "R3", "birth", "death", "cap", "twist", "simplify", "isotopic",
+    "expect", "surface", "budget", "in",
 )
 
 #: statements that change the frame
-MOVE_KINDS = ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "twist", "simplify", "isotopic")
+MOVE_KINDS = ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "cap", "twist", "simplify", "isotopic")
+#: the 4-manifolds a movie with handles may say its surface lives in (``in MANIFOLD``)
+MANIFOLDS = {"S1xB3": "S^1 x B^3", "B2xS2": "B^2 x S^2", "MxI": "M x I"}
 
 
 @dataclass(frozen=True)
@@ -111,6 +114,10 @@ class Movie:
     start_statement: Statement
     statements: tuple[Statement, ...]
     text: str
+    #: the first frame's handles (a link in #ʳ S¹×S²), or None for a movie in S³
+    handles: HandleDiagram | None = None
+    #: where a movie with handles says its surface lives: a key of :data:`MANIFOLDS`, or None
+    lives: str | None = None
 
     @property
     def steps(self) -> list[Statement]:
@@ -247,11 +254,14 @@ class _Reader(Transformer):
     def number(self, token: Token) -> int:
         return read_int(token, self.text)
 
-    def diagram(self, token: Token) -> Diagram:
-        """Read the diagram notation in ``token``; its errors point into the movie file."""
+    def diagram(self, token: Token, handles: bool = False) -> Diagram:
+        """Read the diagram notation in ``token``; its errors point into the movie file.
+
+        With ``handles`` a diagram with handles is read too (as a :class:`HandleDiagram`).
+        """
         source = str(token).rstrip()
         try:
-            return parse_diagram(source)
+            return read_spec(source) if handles else parse_diagram(source)
         except LocatedError as err:
             line = token.line + err.line - 1
             column = (token.column + err.column - 1) if err.line == 1 else err.column
@@ -359,6 +369,14 @@ class _Reader(Transformer):
         return self._move(meta, "death", component=self.number(c[0]))
 
     @v_args(meta=True)
+    def cap(self, meta, c):
+        return self._move(meta, "cap", component=self.number(c[0]))
+
+    @v_args(meta=True)
+    def lives(self, meta, c):
+        return self._statement(meta, "lives", manifold=str(c[0]))
+
+    @v_args(meta=True)
     def twist(self, meta, c):
         return self._move(meta, "twist", edges=c[1], turns=+1 if str(c[0]) == "+1" else -1, start_face=c[2],
                           names=c[3])
@@ -370,7 +388,10 @@ class _Reader(Transformer):
 
     @v_args(meta=True)
     def first(self, meta, c):
-        return self._statement(meta, "start", diagram=self.diagram(c[0]), spec=str(c[0]).strip())
+        read = self.diagram(c[0], handles=True)
+        if isinstance(read, HandleDiagram):
+            return self._statement(meta, "start", diagram=read.diagram, handles=read, spec=str(c[0]).strip())
+        return self._statement(meta, "start", diagram=read, handles=None, spec=str(c[0]).strip())
 
     @v_args(meta=True)
     def simplify(self, meta, c):
@@ -494,5 +515,13 @@ def parse_movie(text: str) -> Movie:
     if early:
         raise MovieSyntaxError("this step comes before the first frame ('start DIAGRAM')", text, early[0].line, early[0].column)
     titles = [s.args["text"] for s in statements if s.kind == "title"]
-    rest = tuple(s for s in statements if s.kind not in ("start", "title"))
-    return Movie(titles[0] if titles else "", first.args["diagram"], first, rest, text)
+    places = [s for s in statements if s.kind == "lives"]
+    if len(places) > 1:
+        raise MovieSyntaxError("a movie says once where its surface lives ('in S1xB3', 'in B2xS2' or 'in MxI')",
+                               text, places[1].line, places[1].column)
+    if places and first.args["handles"] is None:
+        raise MovieSyntaxError("'in MANIFOLD' is for a movie with handles (a first frame 'DIAGRAM with handle across "
+                               "...'); a movie in S^3 needs no such line", text, places[0].line, places[0].column)
+    rest = tuple(s for s in statements if s.kind not in ("start", "title", "lives"))
+    return Movie(titles[0] if titles else "", first.args["diagram"], first, rest, text, first.args["handles"],
+                 places[0].args["manifold"] if places else None)

@@ -24,6 +24,7 @@ SAMPLES = {
     "band": ("unlink(2)", [], "band 1 2 in face 2"),
     "birth": ("unknot", [], "birth cw in face 1"),
     "death": ("unlink(2)", [], "death 2"),
+    "cap": ("unlink(2) with handle across 1 2", ["in B2xS2"], "cap fiber 2"),
     "twist": ("unlink(2)", [], "twist -1 across 1 2 from face 1"),
 }
 
