@@ -31,6 +31,8 @@ EXPECTED = {
     "mistake-twist-of-the-wrong-hand": ("contradicted", 1, [(0, None, 1, 0)]),
     "3_1-disk-in-punctured-CP2": ("verified", 1, [(0, None, 1, 0)]),
     "3_1-from-nothing-in-CP2": ("verified", 1, [(0, None, 0, 1)]),
+    "fibers-bound-disks-in-B2xS2": ("verified", 2, [(0, None, 1, 0), (0, None, 1, 0)]),
+    "trefoil-concordance-in-S1xS2": ("verified", 0, [(0, None, 1, 1)]),
 }
 
 
@@ -193,6 +195,18 @@ def test_the_positive_trefoil_bounds_a_null_homologous_disk_in_a_punctured_cp2_b
     assert [b["summand"] for b in forwards["surface"]["blowups"]] == ["CP^2"]
     assert [b["turns"] for b in forwards["surface"]["blowups"]] == [1]
     assert [b["turns"] for b in backwards["surface"]["blowups"]] == [-1]
+
+
+def test_movies_with_handles_name_where_they_live():
+    # the design notes (section 4): fibers capped by cocores lie in B^2 x S^2; a movie between two links through
+    # a handle lies in the product of S^1 x S^2 with an interval
+    disks, annulus = _example("fibers-bound-disks-in-B2xS2"), _example("trefoil-concordance-in-S1xS2")
+    assert disks["surface"]["lives_in"] == "B^2 x S^2" and disks["surface"]["fiber_caps"] == [[1, 1]]
+    assert annulus["surface"]["lives_in"] == "S^1 x S^2 x I" and annulus["surface"]["handles"] == 1
+    # every k from -2 to 2 is judged, and every bound holds (KnotInfo rasmussen_invariant: the ends are the
+    # same twist knots, so the concordance meets each inequality with equality)
+    assert sorted({b["statement"].split(":")[0] for b in annulus["bounds"]}) == [f"k = {k}" for k in (-1, -2, 0, 1, 2)]
+    assert all(b["holds"] and b["tight"] for b in annulus["bounds"])
 
 
 def _handle_facts(capsys, name):

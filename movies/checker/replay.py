@@ -33,6 +33,11 @@ from movies.language.movie import MOVE_KINDS, Movie, Statement
 from movies.wording import plural
 
 
+def reversed_by(transition: Transition) -> tuple[int, ...]:
+    """The components after a step whose orientation it reversed."""
+    return tuple(after for _, after, same in transition.links if not same)
+
+
 def _names_in(diagram: Diagram) -> str:
     def short(values) -> str:
         values = sorted(values)
@@ -161,7 +166,7 @@ class _Replay:
             return capped(self.handles, record.component, outcome.diagram)
         places = outcome.places
         keep_off(self.handles, places.edges, places.crossings, f"'{record}'")
-        return carried(self.handles, outcome.diagram)
+        return carried(self.handles, outcome.diagram, reversed_by(outcome.transition))
 
     def check_size(self, statement: Statement, record: MoveRecord, before: Diagram) -> None:
         """Refuse a move whose frame would be past the limits, before it is made."""
@@ -195,7 +200,7 @@ class _Replay:
             done = perform(move, frame)
             places = done.places
             keep_off(handles, places.edges, places.crossings, f"step {self.number}: the search's move '{move}'")
-            frame, handles = done.diagram, carried(handles, done.diagram)
+            frame, handles = done.diagram, carried(handles, done.diagram, reversed_by(done.transition))
         self.handles = handles
 
     def isotopic(self, statement: Statement):

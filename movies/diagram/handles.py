@@ -269,13 +269,15 @@ def keep_off(link: HandleDiagram, edges, crossings, what: str) -> None:
                             "they pass through a handle")
 
 
-def carried(link: HandleDiagram, diagram: Diagram) -> HandleDiagram:
+def carried(link: HandleDiagram, diagram: Diagram, reversed_components=()) -> HandleDiagram:
     """The same handles on the diagram after a step that kept off them, checked again.
 
     Each gate keeps its edges and the side of its first edge it starts on (sides, unlike face
-    names, survive moves elsewhere). The check fails, with the handle named, when the step cut
-    the gate's path: a band or a finger across a face the gate runs through, on the wrong side
-    of it, leaves the gate's edges in different faces.
+    names, survive moves elsewhere); ``reversed_components`` names the components of ``diagram``
+    whose orientation the step reversed (a band may), on which left and right trade places. The
+    check fails, with the handle named, when the step cut the gate's path: a band or a finger
+    across a face the gate runs through, on the wrong side of it, leaves the gate's edges in
+    different faces.
 
     >>> from movies.diagram.moves import birth
     >>> from movies.diagram.constructors import unlink
@@ -283,9 +285,15 @@ def carried(link: HandleDiagram, diagram: Diagram) -> HandleDiagram:
     >>> carried(link, birth(link.diagram, 4)).gates == link.gates
     True
     """
+    flipped = set(reversed_components)
+    starts = []
+    for gate in link.gates:
+        hand = gate.hand
+        if diagram.component_of(gate.edges[0]) in flipped:
+            hand = "R" if hand == "L" else "L"
+        starts.append((gate.edges, diagram.side_face[Side(gate.edges[0], hand)]))
     try:
-        return handle_diagram(diagram, [(gate.edges, diagram.side_face[Side(gate.edges[0], gate.hand)])
-                                        for gate in link.gates])
+        return handle_diagram(diagram, starts)
     except MoveError as err:
         raise MoveError(f"the step cuts through a handle's gate: {err}") from None
 

@@ -187,7 +187,10 @@ def surface_lines(data: dict) -> list[str]:
         for end in ("start", "end"):
             values = data["s"].get(end)
             shown = ", ".join(f"{v} over {f}" for f, v in values.items())
-            empty = "   (the empty link)" if data[end]["components"] == 0 else ""
+            capped = bool(data.get("surface") and any(any(c) for c in data["surface"].get("fiber_caps", ())))
+            empty = "   (the empty link)" if data[end]["components"] == 0 and not capped else ""
+            if end == "end" and capped:
+                empty = "   (the fibers before the caps)"
             lines.append(f"s        {end}: {shown}{empty}")
         for bound in data["bounds"]:
             verdict = "holds" if bound["holds"] else "FAILS"

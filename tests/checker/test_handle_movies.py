@@ -136,7 +136,7 @@ def _random_steps(link, rng, count):
                           else MoveRecord("R2+", over=a, under=b, face=face))
             outcome = perform(record, d)
             keep_off(frames[-1], outcome.places.edges, outcome.places.crossings, "a random move")
-            after = carried(frames[-1], outcome.diagram)
+            after = carried(frames[-1], outcome.diagram, [a for _, a, same in outcome.transition.links if not same])
         except MoveError:
             continue
         records.append(record)
@@ -181,3 +181,16 @@ def test_random_verified_handle_movies_never_break_an_inequality():
         assert all(b.holds for b in result.bounds.bounds)
         verified += 1
     assert verified >= 4, verified
+
+
+def test_a_band_that_reverses_a_strand_through_a_handle_keeps_the_gate():
+    # the new circle's orientation wins the band here, so the trefoil's edges change direction and left and right
+    # trade places at the gate; the gate must still start in the same face (face 1, beside edge 1)
+    result = check_movie(f"start {TREFOIL}\nbirth in face 5\nband 7 3 in face 5")
+    assert result.verdict == "verified"
+    last = result.handle_frames[-1]
+    assert last.gates[0].edges == (1, 5) and last.gates[0].start_face(last.diagram) == 1
+    for k in (-1, 1):
+        before = result.handle_frames[-2]
+        moved = perform(MoveRecord("band", first=7, second=3, face=5), twisted(before, k)).diagram
+        assert same_on_sphere(moved, twisted(last, k))
