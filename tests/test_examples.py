@@ -33,6 +33,7 @@ EXPECTED = {
     "3_1-from-nothing-in-CP2": ("verified", 1, [(0, None, 0, 1)]),
     "fibers-bound-disks-in-B2xS2": ("verified", 2, [(0, None, 1, 0), (0, None, 1, 0)]),
     "trefoil-concordance-in-S1xS2": ("verified", 0, [(0, None, 1, 1)]),
+    "mistake-two-disks-in-B2xS2": ("contradicted", 2, [(0, None, 1, 0), (0, None, 1, 0)]),
 }
 
 
@@ -207,6 +208,16 @@ def test_movies_with_handles_name_where_they_live():
     # same twist knots, so the concordance meets each inequality with equality)
     assert sorted({b["statement"].split(":")[0] for b in annulus["bounds"]}) == [f"k = {k}" for k in (-1, -2, 0, 1, 2)]
     assert all(b["holds"] and b["tight"] for b in annulus["bounds"])
+
+
+def test_a_claimed_pair_of_disks_in_b2xs2_that_s_forbids():
+    data = _example("mistake-two-disks-in-B2xS2")
+    # Beliakova–Wehrli 2008 for the cobordism from L(0) to the fibers; LinkInfo's L5a1 has linking number 0, and
+    # the claim is refuted by an invariant of the approximations before s is needed
+    messages = [f["message"] for f in data["findings"]]
+    assert any("is not isotopic to reverse(braid(2)[], 2) with handle across 1 2 off the handles" in m for m in messages)
+    assert any(m.startswith("no such surface exists: k = 0: mirror movie") for m in messages)
+    assert data["surface"]["lives_in"] == "B^2 x S^2" and data["surface"]["null_homologous"]
 
 
 def _handle_facts(capsys, name):

@@ -138,8 +138,10 @@ class _Replay:
                             "the handle's sphere, a diffeomorphism and not an isotopy (see the language reference), "
                             "and away from the gates it would add blow-ups to the product")
         if kind == "isotopic":
-            raise MoveError("isotopy claims in a movie with handles are not offered yet: write the Reidemeister moves "
-                            "(or 'simplify'), which the checker keeps off the gates")
+            claimed = statement.args["handles"]
+            if claimed is None or self.handles is None or len(claimed.gates) != len(self.handles.gates):
+                raise MoveError("in a movie with handles an isotopy claim names the handles too ('isotopic to DIAGRAM "
+                                f"with handle across ...'), as many as the frame has ({len(self.movie.handles.gates)})")
         if self.handles is None and kind == "cap":
             raise MoveError("no handle has a strand through it any more: there is no fiber to cap")
         if kind == "death":
@@ -193,6 +195,45 @@ class _Replay:
         transition = identity_transition("simplify", sorted(self.frame.components))
         return outcome.diagram, transition, outcome.reached, note, found
 
+    def isotopic_off_handles(self, statement: Statement):
+        """An isotopy claim in a movie with handles: the frame and the claimed diagram, handles included,
+        are claimed isotopic in the complement of the handles (so that every L(k) is isotopic to the
+        claimed diagram's). No search certifies it; an invariant of some L(k), or the class, refutes it."""
+        given, claimed = statement.args["diagram"], statement.args["handles"]
+        spec = statement.args["spec"]
+        difference = None
+        if given == self.frame and claimed.gates == self.handles.gates:
+            links = tuple((k, k, True) for k in sorted(self.frame.components))
+            self.handles = claimed
+            return given, Transition("isotopic", links=links), True, "the same diagram with the same handles", ()
+        if self.handles.homology_class() != claimed.homology_class():
+            difference = (f"their classes in H_1: {self.handles.homology_class()} and {claimed.homology_class()}")
+        else:
+            from movies.bounds.handles import MOVIE_TWISTS
+            from movies.diagram.handles import twisted
+
+            for k in MOVIE_TWISTS:
+                found = first_difference(twisted(self.handles, k), twisted(claimed, k))
+                if found is not None:
+                    difference = f"{found} of the approximations at k = {k}"
+                    break
+        if difference is not None:
+            self.find("false", statement, f"step {self.number}: the frame is not isotopic to {spec} off the handles",
+                      f"they differ in {difference}", about="isotopy step")
+        else:
+            self.find("unproved", statement, f"step {self.number}: isotopic to {spec} off the handles is unproved",
+                      "no search runs between diagrams with handles; the class and every invariant of the "
+                      "approximations L(k), k = -2 ... 2, agree", about="isotopy step")
+        self.handles = claimed
+        if self.frame.component_count() != given.component_count():
+            return given, Transition("isotopic", links=(), ended=tuple(self.frame.components),
+                                     started=tuple(given.components)), False, "refuted", ()
+        pairs = zip(sorted(self.frame.components), sorted(given.components))
+        matched = "components matched in order of their names"
+        note = (f"{REFUTED}: they differ in {difference}; the movie goes on from the claimed diagram, {matched}"
+                if difference is not None else f"unproved; the movie goes on from the claimed diagram ({matched})")
+        return given, Transition("isotopic", links=tuple((a, b, True) for a, b in pairs)), False, note, ()
+
     def handles_after(self, moves) -> None:
         """Carry the handles along the moves a search found, refusing any that touches a gate."""
         frame, handles = self.frame, self.handles
@@ -204,6 +245,10 @@ class _Replay:
         self.handles = handles
 
     def isotopic(self, statement: Statement):
+        if self.movie.handles is not None:
+            return self.isotopic_off_handles(statement)
+        if statement.args["handles"] is not None:
+            raise MoveError("this movie has no handles, so the claimed diagram cannot have any")
         given = statement.args["diagram"]
         outcome = search.certify(self.frame, given, self.budget)
         if outcome.certified:

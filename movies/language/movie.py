@@ -399,7 +399,10 @@ class _Reader(Transformer):
 
     @v_args(meta=True)
     def isotopic(self, meta, c):
-        return self._statement(meta, "isotopic", diagram=self.diagram(c[0]), spec=str(c[0]).strip())
+        read = self.diagram(c[0], handles=True)
+        if isinstance(read, HandleDiagram):
+            return self._statement(meta, "isotopic", diagram=read.diagram, handles=read, spec=str(c[0]).strip())
+        return self._statement(meta, "isotopic", diagram=read, handles=None, spec=str(c[0]).strip())
 
     @v_args(meta=True)
     def claim(self, meta, c):

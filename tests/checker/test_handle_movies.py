@@ -28,7 +28,7 @@ def _invalid(text):
     ("band 1 2", "acts on edge 1, which handle 1 crosses"),
     ("death 1", "component 1 passes through handle 1, so it bounds no disk there"),
     ("twist +1 across 1 2", "a twist step in a movie with handles is not offered"),
-    ("isotopic to unlink(2)", "isotopy claims in a movie with handles are not offered yet"),
+    ("isotopic to unlink(2)", "in a movie with handles an isotopy claim names the handles too"),
     ("cap fiber 1", "say 'in B2xS2' in the movie"),
 ])
 def test_steps_a_movie_with_handles_refuses(step, reason):
@@ -194,3 +194,15 @@ def test_a_band_that_reverses_a_strand_through_a_handle_keeps_the_gate():
         before = result.handle_frames[-2]
         moved = perform(MoveRecord("band", first=7, second=3, face=5), twisted(before, k)).diagram
         assert same_on_sphere(moved, twisted(last, k))
+
+
+def test_isotopy_claims_off_the_handles():
+    start = "start reverse(braid(2)[], 2) with handle across 1 2"
+    # the same diagram with the same handles: certified
+    assert check_movie(f"{start}\nisotopic to reverse(braid(2)[], 2) with handle across 1 2").verdict == "verified"
+    # a class that differs refutes the claim (fibers(2, 0) runs both strands one way)
+    result = check_movie(f"{start}\nisotopic to braid(2)[] with handle across 1 2")
+    assert result.verdict == "contradicted" and "their classes in H_1" in result.findings[0].evidence
+    # agreement on every approximation leaves the claim unproved: the two circles drawn the other way round
+    result = check_movie(f"{start}\nisotopic to reverse(braid(2)[], 1) with handle across 1 2")
+    assert result.verdict == "conditional" and "is unproved" in result.findings[0].message
