@@ -406,10 +406,23 @@ def _svg_size(svg: str) -> tuple[int, int]:
 
 
 def _run_draw(args: argparse.Namespace) -> int:
+    if args.spec is not None or args.file is not None:
+        from movies.diagram.handles import HandleDiagram
+        from movies.language.spec import read_spec
+
+        if sum(x is not None for x in (args.spec, args.pd, args.braid, args.file)) == 1:
+            text = args.spec if args.spec is not None else read_text(args.file)
+            read = read_spec(text)
+            if isinstance(read, HandleDiagram):  # a link in #^r S^1 x S^2: drawn with its gates
+                return _draw(args, args.spec or args.file, read.diagram, read.gates)
+    label, diagram = diagram_from_arguments(args)
+    return _draw(args, label, diagram, ())
+
+
+def _draw(args: argparse.Namespace, label: str, diagram, gates) -> int:
     from movies.draw import diagram_svg
 
-    label, diagram = diagram_from_arguments(args)
-    svg = diagram_svg(diagram, labels=args.labels, title=label)
+    svg = diagram_svg(diagram, labels=args.labels, title=label, gates=gates)
     if args.output.lower().endswith(".png"):
         svg_to_png(svg, args.output)
     elif args.output.lower().endswith(".svg"):
@@ -429,20 +442,27 @@ def _run_frames(args: argparse.Namespace) -> int:
         raise InputError(f"there is no frame after step {at}: the frames run from 0 to {last}{stop}")
     heading = "the first frame" if at == 0 else f"the frame after step {at} ({result.steps[at - 1].source})"
     frame = result.frames[at]
+    handles = result.handle_frames[at] if at < len(result.handle_frames) else None
+    gates = handles.gates if handles is not None else ()
     if args.svg or args.png:
         from movies.draw import diagram_svg
 
-        svg = diagram_svg(frame, labels=True, title=heading)
+        svg = diagram_svg(frame, labels=True, title=heading, gates=gates)
         if args.svg:
             _write(args.svg, svg)
         if args.png:
             svg_to_png(svg, args.png)
     if args.json:
         print(json.dumps({"file": args.file, "at": at, "frames": last + 1, "heading": heading,
-                          "step": None if at == 0 else result.steps[at - 1].source, **frame.as_data()}))
+                          "step": None if at == 0 else result.steps[at - 1].source, **frame.as_data(),
+                          **({"handles": [{"edges": list(g.edges), "start_face": g.start_face(frame)} for g in gates]}
+                             if result.movie.handles is not None else {})}))
     else:
         print(heading)
         print(frame.summary())
+        for number, gate in enumerate(gates, start=1):
+            print(f"handle {number}: its gate crosses edges {', '.join(map(str, gate.edges))} from face "
+                  f"{gate.start_face(frame)}")
     return EXIT_OK
 
 

@@ -137,7 +137,7 @@ def _face_path(diagram: Diagram, face: int, curves, canvas: _Canvas, outer: bool
 
 
 def diagram_svg(diagram: Diagram, labels: bool = False, highlight: Highlight | dict | None = None,
-                size: int = 420, title: str | None = None) -> str:
+                size: int = 420, title: str | None = None, gates=()) -> str:
     """Draw a diagram as a self-contained SVG document.
 
     Parameters
@@ -154,6 +154,9 @@ def diagram_svg(diagram: Diagram, labels: bool = False, highlight: Highlight | d
         Width of the picture in pixels.
     title : str or None
         A tooltip title for the whole picture.
+    gates : sequence of Gate
+        Handles to draw (:class:`movies.diagram.handles.Gate`): each gate as a dashed black path
+        from inside its first face across the middle of each edge it crosses, named h1, h2, ...
 
     Returns
     -------
@@ -163,17 +166,21 @@ def diagram_svg(diagram: Diagram, labels: bool = False, highlight: Highlight | d
     >>> from movies.diagram.constructors import unlink
     >>> diagram_svg(unlink(0)).count("<path")
     0
+    >>> from movies.diagram.handles import fibers
+    >>> link = fibers(1, 1)
+    >>> diagram_svg(link.diagram, gates=link.gates).count('class="gate"')
+    1
     """
     if isinstance(highlight, dict):
         highlight = Highlight(**{k: tuple(v) for k, v in highlight.items()})
     highlight = highlight or Highlight()
     lay = layout(diagram)
     drawn = strands(diagram, lay)
-    return render(diagram, lay, drawn, labels, highlight, size, title)
+    return render(diagram, lay, drawn, labels, highlight, size, title, gates)
 
 
 def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highlight: Highlight,
-           size: int, title: str | None) -> str:
+           size: int, title: str | None, gates=()) -> str:
     """The SVG text for a diagram whose layout and curves are already made (see :func:`diagram_svg`).
 
     >>> from movies.diagram.constructors import unknot
@@ -243,10 +250,66 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
             x, y = canvas(lay.crossings[crossing])
             out.append(f'<circle class="hl-crossing" data-crossing="{crossing}" cx="{_num(x)}" cy="{_num(y)}" '
                        f'r="{_num(stroke * 5)}" fill="none" stroke="{HIGHLIGHT_CROSSING}" stroke-width="{_num(stroke)}"/>')
+    for index, gate in enumerate(gates, start=1):
+        out.extend(_gate(diagram, gate, index, drawn, canvas, stroke))
     if labels:
         out.extend(_labels(diagram, lay, drawn, canvas, colour_of, stroke))
     out.append("</svg>")
     return "\n".join(out)
+
+
+def _gate(diagram: Diagram, gate, index: int, drawn: Strands, canvas: _Canvas, stroke: float) -> list[str]:
+    """A handle's gate: a dashed path across each edge it crosses, with its name.
+
+    Where it crosses an edge is chosen near where it crossed the edge before (near the first
+    edge's neighbour for the first), so that a gate through the corner of a crossing stays in
+    that corner; it starts a little inside the face beside its first edge and ends a little
+    inside the face beyond its last, and runs straight between.
+    """
+    if any(edge not in drawn.curves for edge in gate.edges):
+        return []
+    lines = {edge: [canvas(p) for p in sample(drawn.curves[edge])] for edge in gate.edges}
+
+    def inner(edge):  # the middle part of an edge, away from its crossings
+        line = lines[edge]
+        cut = len(line) // 6
+        return line[cut:len(line) - cut] or line
+
+    def nearest(candidates, targets):
+        return min(candidates, key=lambda p: min(math.hypot(p[0] - q[0], p[1] - q[1]) for q in targets))
+
+    chosen = []
+    for position, edge in enumerate(gate.edges):
+        if position == 0:
+            chosen.append(nearest(inner(edge), inner(gate.edges[1])) if len(gate.edges) > 1
+                          else _middle(lines[edge])[0])
+        else:
+            chosen.append(nearest(inner(edge), [chosen[-1]]))
+    here = diagram.side_face[Side(gate.edges[0], gate.hand)]
+    points = []
+    reach = stroke * 9
+    for position, (edge, (mx, my)) in enumerate(zip(gate.edges, chosen)):
+        line = lines[edge]
+        at = min(range(len(line) - 1), key=lambda i: math.hypot(line[i][0] - mx, line[i][1] - my))
+        tx, ty = line[at + 1][0] - line[at][0], line[at + 1][1] - line[at][1]
+        norm = math.hypot(tx, ty) or 1.0
+        tx, ty = tx / norm, ty / norm
+        left, right = diagram.faces_beside(edge)
+        # on the canvas (y down) the left of the direction (tx, ty) is (ty, -tx)
+        nx, ny = (ty, -tx) if here == left else (-ty, tx)
+        if position == 0:
+            points.append((mx + reach * nx, my + reach * ny))
+        points.append((mx, my))
+        here = right if here == left else left
+        if position == len(gate.edges) - 1:
+            points.append((mx - reach * nx, my - reach * ny))
+    d = "M" + " L".join(f"{_num(x)} {_num(y)}" for x, y in points)
+    x, y = points[0]
+    return [f'<path class="gate" data-handle="{index}" data-edges="{" ".join(map(str, gate.edges))}" d="{d}" '
+            f'fill="none" stroke="#222222" stroke-width="{_num(stroke * 1.2)}" stroke-dasharray="{_num(stroke * 3)} '
+            f'{_num(stroke * 2)}" stroke-linecap="round"/>',
+            f'<text class="gate-name" x="{_num(x)}" y="{_num(y)}" font-size="{_num(stroke * 9)}" '
+            f'fill="#222222" text-anchor="middle">h{index}</text>']
 
 
 def _labels(diagram, lay, drawn, canvas, colour_of, stroke) -> list[str]:

@@ -85,7 +85,9 @@ def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
         what = "the start" if index == 0 else f"after step {index}"
         caption = (f"frame {index} ({what}): {plural(frame.crossing_count(), 'crossing')}, "
                    f"{plural(frame.component_count(), 'component')}")
-        svg = diagram_svg(frame, labels=True, highlight=highlight, size=size, title=f"frame {index}")
+        handles = result.handle_frames[index] if index < len(result.handle_frames) else None
+        svg = diagram_svg(frame, labels=True, highlight=highlight, size=size, title=f"frame {index}",
+                          gates=handles.gates if handles is not None else ())
         out.append(f'<div class="mv-row" id="frame-{index}"><figure class="mv-frame"><figcaption>{escape(caption)}'
                    f"</figcaption>{svg}</figure>")
         if statement is not None and number in records:

@@ -206,3 +206,23 @@ def test_isotopy_claims_off_the_handles():
     # agreement on every approximation leaves the claim unproved: the two circles drawn the other way round
     result = check_movie(f"{start}\nisotopic to reverse(braid(2)[], 1) with handle across 1 2")
     assert result.verdict == "conditional" and "is unproved" in result.findings[0].message
+
+
+def test_every_frame_is_drawn_with_its_gates(tmp_path, capsys):
+    import json
+    import re
+
+    from movies.cli.main import main
+    from movies.report.html import movie_html
+
+    path = "examples/movies/trefoil-concordance-in-S1xS2.movie"
+    result = check_movie(path)
+    page = movie_html(result, source=path)
+    # one gate per frame, read back from the drawing: the edges it crosses are the handle's
+    gates = re.findall(r'<path class="gate" data-handle="1" data-edges="([0-9 ]+)"', page)
+    assert gates == ["1 5"] * len(result.frames)
+    assert main(["frames", path, "--at", "2", "--json"]) == 0
+    assert json.loads(capsys.readouterr().out)["handles"] == [{"edges": [1, 5], "start_face": 1}]
+    out = tmp_path / "h.svg"
+    assert main(["draw", "unlink(4) with handle across 1 2 and handle across 3 4", "-o", str(out)]) == 0
+    assert re.findall(r'data-handle="(\d)" data-edges="([0-9 ]+)"', out.read_text()) == [("1", "1 2"), ("2", "3 4")]
