@@ -138,6 +138,14 @@ def surface_bounds(start: Diagram, end: Diagram, surface: Surface | None) -> Bou
     if not surface.orientable or not surface.oriented_by_start:
         report.notes.append("the surface is not oriented compatibly with the start, so the s-inequalities do not apply")
         return report
+    if surface.end_reversed:
+        # the inequalities are about the orientation the surface induces on the last frame
+        from movies.diagram.constructors import reverse
+
+        end = reverse(end, surface.end_reversed)
+        report.s["end"] = s_values(end)
+        report.notes.append(f"the last frame is drawn against the orientation the surface induces on components "
+                            f"{', '.join(map(str, surface.end_reversed))}; s of the end is taken for the induced one")
     mirror_s = {label: mirror_s_values(frame, report.s[label]) for label, frame in (("start", start), ("end", end))}
     place = surface_ambient(start, end, surface)
     report.bounds, notes = applicable_bounds(place, report.s, mirror_s, surface.euler_characteristic,

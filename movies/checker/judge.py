@@ -137,6 +137,13 @@ class _Judging:
             report.notes.append("the surface is not oriented compatibly with the start, so the s-inequalities do not "
                                 "apply")
             return report
+        if part.end_reversed and end is not None and hasattr(end, "gates"):
+            from movies.diagram.constructors import reverse
+            from movies.diagram.handles import regated
+
+            end = regated(end, reverse(end.diagram, part.end_reversed))
+            report.notes.append(f"the frame is drawn against the orientation the surface induces on components "
+                                f"{', '.join(map(str, part.end_reversed))}; s is taken for the induced one")
         report.bounds, values = movie_bounds(result.movie.handles, end, part.euler_characteristic,
                                              part.every_component_meets_start, part.every_component_meets_end)
         report.s = {"start": values[0]["start"], "end": values[0]["end"]}

@@ -94,6 +94,9 @@ class Surface:
     start_count: int
     end_count: int
     blowups: tuple[Blowup, ...] = ()
+    #: last-frame components drawn against the orientation the surface gives them (when it is
+    #: oriented by the start; within a piece that misses the start, against its first end component)
+    end_reversed: tuple[int, ...] = ()
 
     @property
     def connected(self) -> bool:
@@ -127,6 +130,9 @@ def surface_of(start: Sequence[int], transitions: Sequence[Transition]) -> Surfa
 
     >>> surface_of([1, 2], [Transition("band", links=((1, 1, True), (2, 1, False)), saddles=1)]).oriented_by_start
     False
+    >>> surface_of([1], [Transition("birth", started=(2,), births=1),
+    ...                  Transition("band", links=((1, 1, False), (2, 1, True)), saddles=1)]).end_reversed
+    (1,)
     """
     pieces = ParityUnionFind()  # connectivity and, within each piece, the orientation signs
     tied = ParityUnionFind()  # the same, with every first-frame component tied to one positive node
@@ -213,7 +219,32 @@ def surface_of(start: Sequence[int], transitions: Sequence[Transition]) -> Surfa
         orientation_broken_at=broken_at,
         start_count=len(start), end_count=len(end_nodes),
         blowups=_blowups(gates, pieces, tied, positive, end_nodes),
+        end_reversed=_end_reversed(pieces, tied, positive, current) if broken_at is None else (),
     )
+
+
+def _end_reversed(pieces: ParityUnionFind, tied: ParityUnionFind, positive: Node, current: dict) -> tuple[int, ...]:
+    """The last frame's components whose drawn orientation is not the one the surface induces.
+
+    A band that does not respect the orientations reverses what it must of the rest of the
+    frame, so a drawn orientation can disagree with the surface's; the s of the last frame that
+    the inequalities need is that of the induced orientation.
+    """
+    reversed_ = []
+    reference: dict = {}  # for pieces that miss the start: the sign of their first end component
+    root_positive, sign_positive = tied.find(positive)
+    for name in sorted(current):
+        node = current[name]
+        root, sign = tied.find(node)
+        if root == root_positive:
+            if sign != sign_positive:
+                reversed_.append(name)
+            continue
+        piece, piece_sign = pieces.find(node)
+        first = reference.setdefault(piece, piece_sign)
+        if piece_sign != first:
+            reversed_.append(name)
+    return tuple(reversed_)
 
 
 def _blowups(gates, pieces: ParityUnionFind, tied: ParityUnionFind, positive: Node, end_nodes: set) -> tuple[Blowup, ...]:

@@ -158,6 +158,8 @@ def test_the_reference_page_statements_read():
             text = snippet + "\nstart unknot"
         elif snippet.startswith("start"):
             text = snippet
+        elif snippet.startswith(("in ", "cap ")):  # statements of a movie with handles
+            text = "start unlink(2) with handle across 1 2\n" + snippet
         else:
             text = "start unknot\n" + snippet
         parse_movie(text)
