@@ -289,3 +289,19 @@ def test_a_band_that_reverses_a_component_is_judged_with_the_induced_orientation
     assert result.verdict == "verified" and result.surface.end_reversed == (1,)
     assert result.bounds.s["end"] == result.bounds.s["start"]
     assert all(b.holds for b in result.bounds.bounds)
+
+
+@pytest.mark.parametrize("name, manifold", [("fibers-bound-disks-in-B2xS2", "B^2 x S^2"),
+                                            ("mistake-two-disks-in-B2xS2", "B^2 x S^2")])
+def test_movies_bounds_agrees_with_the_checker_on_the_examples(name, manifold):
+    # the same inequalities without a movie: 1 - chi >= s(L(k)) and s(m(L(k))) for the k the manifold allows
+    from pathlib import Path
+
+    from movies.bounds.handles import surface_questions
+
+    path = Path(__file__).resolve().parents[2] / "examples" / "movies" / f"{name}.movie"
+    result = check_movie(path)
+    answers = {a.manifold: a for a in surface_questions(result.movie.handles, genus=0, fields=("Q", "F2"))}
+    best = max(b.rhs for b in answers[manifold].bounds)
+    allowed = 1 - result.surface.euler_characteristic >= best
+    assert allowed == (result.verdict == "verified"), (name, best, result.surface.euler_characteristic)
