@@ -192,10 +192,7 @@ def surface_lines(data: dict) -> list[str]:
             if end == "end" and capped:
                 empty = "   (the fibers before the caps)"
             lines.append(f"s        {end}: {shown}{empty}")
-        for bound in data["bounds"]:
-            verdict = "holds" if bound["holds"] else "FAILS"
-            tight = ", an equality" if bound["tight"] else ""
-            lines.append(f"  bound  {bound['statement']}: {bound['lhs']} >= {bound['rhs']} {verdict}{tight}")
+        lines.extend(bound_lines(data["bounds"]))
         for end, bounds in data["four_genus_bounds"].items():
             shown = ", ".join(f"{b['invariant']} gives {b['bound']}" for b in bounds)
             lines.append(f"  g4 of the {end} knot is at least: {shown}")
@@ -205,6 +202,36 @@ def surface_lines(data: dict) -> list[str]:
             lines.append(f"  note   {note}")
     for check in data["checkpoints"]:
         lines.append(f"  line {check['line']}  {check['claim']}: {check['outcome']} ({check['detail']})")
+    return lines
+
+
+def bound_lines(bounds: list[dict]) -> list[str]:
+    """The inequalities as the report prints them: one line each, or, for a movie with handles
+    (statements that start with their k), one line per k and field with each inequality's sides.
+
+    >>> bound_lines([{"statement": "k = 1: every component meets the start: s(end) - s(start) >= chi  [Q]",
+    ...               "lhs": 0, "rhs": 0, "holds": True, "tight": True}])
+    ['  bound  k = 1 [Q]: s(end) - s(start) = 0 >= chi = 0 (equality)']
+    """
+    lines = []
+    grouped: dict = {}
+    for bound in bounds:
+        statement = bound["statement"]
+        if statement.startswith("k = ") and ": " in statement and statement.endswith("]"):
+            k, rest = statement.split(": ", 1)
+            text, field = rest.rsplit("  [", 1)
+            grouped.setdefault((k, field.rstrip("]")), []).append((text, bound))
+            continue
+        verdict = "holds" if bound["holds"] else "FAILS"
+        tight = ", an equality" if bound["tight"] else ""
+        lines.append(f"  bound  {statement}: {bound['lhs']} >= {bound['rhs']} {verdict}{tight}")
+    for (k, field), items in grouped.items():
+        parts = []
+        for text, b in items:
+            expression = text.rsplit(": ", 1)[-1].replace(" >= chi", "")  # e.g. "s(end) - s(start)"
+            parts.append(f"{expression} = {b['lhs']} >= chi = {b['rhs']}" + ("" if b["holds"] else " FAILS")
+                         + (" (equality)" if b["tight"] else ""))
+        lines.append(f"  bound  {k} [{field}]: " + "; ".join(parts))
     return lines
 
 
