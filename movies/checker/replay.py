@@ -275,6 +275,18 @@ class _Replay:
                     f"agrees, and the movie goes on from the claimed diagram ({matched})")
         return given, Transition("isotopic", links=tuple((a, b, True) for a, b in pairs)), False, note, ()
 
+def replay(movie: Movie, budget: float = search.DEFAULT_BUDGET) -> tuple[CheckResult, list[Expectation]]:
+    """Replay a parsed movie's steps without judging it: the frames, steps and findings so far,
+    and the ``expect`` lines met on the way (for :func:`movies.checker.judge.judge`).
+
+    >>> from movies.language.movie import parse_movie
+    >>> result, _ = replay(parse_movie("start unlink(2)\\nband 1 2"))
+    >>> [frame.component_count() for frame in result.frames]
+    [2, 1]
+    """
+    return _Replay(movie, budget).run()
+
+
 def check_movie(movie, budget: float = search.DEFAULT_BUDGET, bounds: bool = True) -> CheckResult:
     """Replay a movie and judge it.
 
@@ -306,5 +318,5 @@ def check_movie(movie, budget: float = search.DEFAULT_BUDGET, bounds: bool = Tru
     if isinstance(budget, bool) or not isinstance(budget, (int, float)) or not 0 <= budget < float("inf"):
         raise InputError(f"a budget is a number of seconds, 0 or more, not {budget!r}")
     limits.check("seconds", math.ceil(budget), f"a budget of {budget} seconds would let one search run {budget} seconds")
-    replayed, expectations = _Replay(read_movie(movie), budget).run()
+    replayed, expectations = replay(read_movie(movie), budget)
     return judge(replayed, expectations, bounds)

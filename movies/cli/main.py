@@ -108,6 +108,24 @@ def build_parser() -> argparse.ArgumentParser:
     _limit_option(chk)
     chk.set_defaults(run=_run_check)
 
+    tri = commands.add_parser(
+        "try",
+        help="what candidate steps would leave, before they are written into a movie",
+        description=("Try one or more candidate steps (lines of the movie language) on a frame: SOURCE is a movie "
+                     "file (the frame after step --at N, by default its last) or, when no such file exists, a "
+                     "diagram in the notation. For each step: legal or not (and why), the components, crossings "
+                     "and linking numbers it leaves, and whether that is an unlink (by the invariants, then by the "
+                     "Reidemeister search within --budget seconds)."),
+    )
+    tri.add_argument("source", metavar="SOURCE", help="a movie file, or a diagram (e.g. 6_1)")
+    tri.add_argument("steps", nargs="+", metavar="STEP", help="a candidate step, e.g. 'band 3 9 in face 2'")
+    tri.add_argument("--at", metavar="N", default=None, help="the frame of the movie after step N (0: the first)")
+    tri.add_argument("--budget", metavar="SECONDS", default=None, help="time each search may take (default 5)")
+    tri.add_argument("--json", action="store_true", help="print one JSON object")
+    tri.add_argument("--svg", metavar="OUT.svg", help="draw what each legal step leaves (OUT-1.svg, OUT-2.svg, ...)")
+    _limit_option(tri)
+    tri.set_defaults(run=_run_try)
+
     drw = commands.add_parser(
         "draw",
         help="draw a diagram as SVG (or PNG)",
@@ -429,6 +447,53 @@ def _draw(args: argparse.Namespace, label: str, diagram, gates) -> int:
         _write(args.output, svg)
     else:
         raise InputError(f"the output {args.output} should end in .svg or .png")
+    return EXIT_OK
+
+
+def _run_try(args: argparse.Namespace) -> int:
+    """``movies try``: candidate steps on a frame of a movie, or on a diagram."""
+    import os
+
+    from movies.checker.trial import try_steps
+    from movies.report.trial import trial_lines
+
+    budget = _seconds(args.budget)
+    if os.path.isfile(args.source):
+        from movies.checker.replay import check_movie
+
+        result = check_movie(_read_movie(args.source), budget, bounds=False)
+        last = len(result.frames) - 1
+        wanted = _number(args.at, "--at")
+        at = last if wanted is None else wanted
+        if not 0 <= at <= last:
+            stop = " (the movie stops at an invalid step)" if not result.complete else ""
+            raise InputError(f"there is no frame after step {at}: the frames run from 0 to {last}{stop}")
+        frame = result.frames[at]
+        handles = result.handle_frames[at] if at < len(result.handle_frames) else None
+        lives = result.movie.lives
+        heading = f"{args.source}, the frame after step {at}" if at else f"{args.source}, the first frame"
+    else:
+        from movies.diagram.handles import HandleDiagram
+        from movies.language.spec import read_spec
+
+        if args.at is not None:
+            raise InputError(f"--at is for a movie file; there is no file {args.source}")
+        read = read_spec(args.source)
+        frame, handles = (read.diagram, read) if isinstance(read, HandleDiagram) else (read, None)
+        lives, heading = None, args.source
+    trials = try_steps(frame, args.steps, budget, handles, lives)
+    if args.svg:
+        from movies.draw import diagram_svg
+
+        stem = args.svg[:-4] if args.svg.lower().endswith(".svg") else args.svg
+        for index, trial in enumerate(trials, start=1):
+            if trial.legal:
+                gates = trial.handles.gates if trial.handles is not None else ()
+                _write(f"{stem}-{index}.svg", diagram_svg(trial.diagram, labels=True, title=trial.step, gates=gates))
+    if args.json:
+        print(json.dumps({"source": args.source, "heading": heading, "trials": [t.as_json() for t in trials]}))
+    else:
+        print("\n".join(trial_lines(heading, trials)))
     return EXIT_OK
 
 
