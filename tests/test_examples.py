@@ -34,6 +34,7 @@ EXPECTED = {
     "fibers-bound-disks-in-B2xS2": ("verified", 2, [(0, None, 1, 0), (0, None, 1, 0)]),
     "trefoil-concordance-in-S1xS2": ("verified", 0, [(0, None, 1, 1)]),
     "mistake-two-disks-in-B2xS2": ("contradicted", 2, [(0, None, 1, 0), (0, None, 1, 0)]),
+    "6_1-ribbon-along-a-path": ("verified", 1, [(0, None, 1, 0)]),
 }
 
 

@@ -50,7 +50,7 @@ FIELDS = {
     "R2+": ("over", "under", "face", "names"),
     "R2-": ("face",),
     "R3": ("face", "names"),
-    "band": ("first", "second", "face", "names"),
+    "band": ("first", "second", "face", "names", "path"),
     "birth": ("face", "counterclockwise", "names"),
     "death": ("component",),
     "cap": ("component",),
@@ -59,9 +59,9 @@ FIELDS = {
 #: every kind of move step
 KINDS = tuple(FIELDS)
 #: fields a record may leave out
-_OPTIONAL = {"kink", "names", "start_face"} | {"band:face", "birth:counterclockwise"}
+_OPTIONAL = {"kink", "names", "start_face", "path"} | {"band:face", "birth:counterclockwise"}
 _ALL = ("edge", "hand", "sign", "crossing", "kink", "over", "under", "face", "first", "second",
-        "counterclockwise", "component", "edges", "turns", "start_face", "names")
+        "counterclockwise", "component", "edges", "turns", "start_face", "names", "path")
 #: per kind, the fields it must have and the fields it must not
 _REQUIRED = {kind: tuple(name for name in fields if name not in _OPTIONAL and f"{kind}:{name}" not in _OPTIONAL)
              for kind, fields in FIELDS.items()}
@@ -101,6 +101,8 @@ class MoveRecord:
     turns: int | None = None
     start_face: int | None = None
     names: NewNames | None = None
+    #: a band's path: the edges its core crosses, in order, each (edge, True) over or (edge, False) under
+    path: tuple[tuple[int, bool], ...] | None = None
 
     def __post_init__(self) -> None:
         kind = self.kind
@@ -148,7 +150,9 @@ class MoveRecord:
         elif k == "R3":
             text = f"R3 face {self.face}"
         elif k == "band":
-            text = f"band {self.first} {self.second}" + (f" in face {self.face}" if self.face is not None else "")
+            text = (f"band {self.first} {self.second}"
+                    + "".join(f" {'over' if over else 'under'} {edge}" for edge, over in self.path or ())
+                    + (f" in face {self.face}" if self.face is not None else ""))
         elif k == "birth":
             text = f"birth{'' if self.counterclockwise else ' cw'} in face {self.face}"
         elif k == "death":
@@ -233,7 +237,8 @@ _CALL: dict[str, Callable[[Diagram, MoveRecord], object]] = {
     "R2+": lambda d, r: moves.r2_add(d, r.over, r.under, r.face, **_chosen(r)),
     "R2-": lambda d, r: moves.r2_remove(d, r.face),
     "R3": lambda d, r: moves.r3(d, r.face, **_chosen(r)),
-    "band": lambda d, r: moves.saddle(d, r.first, r.second, r.face, **_chosen(r)),
+    "band": lambda d, r: (moves.path_band(d, r.first, r.second, r.path, r.face, **_chosen(r)) if r.path
+                          else moves.saddle(d, r.first, r.second, r.face, **_chosen(r))),
     "birth": lambda d, r: moves.birth(d, r.face, r.counterclockwise, **_chosen(r)),
     "death": lambda d, r: moves.death(d, r.component),
     # a fiber cap removes a crossingless circle as a death does; that it is a fiber of a handle is
@@ -269,6 +274,11 @@ def perform(record: MoveRecord, diagram: Diagram) -> Outcome:
 
 def _outcome(record: MoveRecord, before: Diagram, result) -> Outcome:
     kind = record.kind
+    if kind == "band" and record.path:
+        crossed = tuple(edge for edge, _ in record.path)
+        return Outcome(result.diagram, _band_transition(result.saddle),
+                       Places(edges=(record.first, record.second) + crossed, faces=result.faces),
+                       _band_note(result.saddle, f"along a path through faces {', '.join(map(str, result.faces))}"))
     if kind == "band":
         return Outcome(result.diagram, _band_transition(result),
                        Places(edges=(record.first, record.second), faces=(result.face,)), _band_note(result))
@@ -319,6 +329,8 @@ def growth(record: MoveRecord) -> tuple[int, int]:
     if kind == "twist":
         strands = len(record.edges)
         return abs(record.turns) * strands * (strands - 1), 0
+    if kind == "band":
+        return 2 * len(record.path or ()), 0  # two crossings for each edge a band's path crosses
     return {"R1+": 1, "R2+": 2}.get(kind, 0), int(kind == "birth")
 
 
@@ -329,7 +341,7 @@ def places_named(record: MoveRecord) -> Places:
     Places(edges=(4, 7), faces=(2,), crossings=())
     """
     edges = tuple(v for v in (record.edge, record.first, record.second, record.over, record.under, record.kink)
-                  if v is not None) + tuple(record.edges or ())
+                  if v is not None) + tuple(record.edges or ()) + tuple(edge for edge, _ in record.path or ())
     faces = tuple(v for v in (record.face, record.start_face) if v is not None)
     return Places(edges=edges, faces=faces, crossings=(record.crossing,) if record.crossing is not None else ())
 
@@ -349,7 +361,7 @@ def _band_transition(result: moves.SaddleResult) -> Transition:
     return Transition("band", links=((old, old, True),), twisted=(old,), saddles=1)
 
 
-def _band_note(result: moves.SaddleResult) -> str:
+def _band_note(result: moves.SaddleResult, where: str = "") -> str:
     joined = " and ".join(map(str, result.joined))
     what = {
         "merge": f"merges components {joined}",
@@ -358,7 +370,7 @@ def _band_note(result: moves.SaddleResult) -> str:
     }[result.effect]
     if not result.respects_orientation and result.effect == "merge":
         what += f"; it does not respect the orientation, component {result.reversed_component} is reversed"
-    return f"band across face {result.face} {what}"
+    return f"band {where or f'across face {result.face}'} {what}"
 
 
 def twist_note(turns: int, strands: int, algebraic: int) -> str:

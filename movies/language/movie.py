@@ -337,7 +337,15 @@ class _Reader(Transformer):
     # ------------------------------------------------------------ moves
     @v_args(meta=True)
     def band(self, meta, c):
-        return self._move(meta, "band", first=self.number(c[0]), second=self.number(c[1]), face=c[2], names=c[3])
+        path = tuple(x for x in c[2:-2])
+        return self._move(meta, "band", first=self.number(c[0]), second=self.number(c[1]), face=c[-2], names=c[-1],
+                          path=path or None)
+
+    def over_edge(self, children):
+        return (self.number(children[0]), True)
+
+    def under_edge(self, children):
+        return (self.number(children[0]), False)
 
     @v_args(meta=True)
     def r1_add(self, meta, c):

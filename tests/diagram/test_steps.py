@@ -74,3 +74,20 @@ def test_records_refuse_fields_of_other_kinds():
 def test_a_move_that_does_not_apply_says_why():
     with pytest.raises(MoveError):
         perform(MoveRecord("death", component=1), parse_diagram("3_1"))
+
+
+def test_a_band_along_a_path_is_read_performed_marked_and_written_back():
+    # KnotInfo smooth_four_genus of 6_1 is 0; this band, over one strand, leaves the unlink (the example movie)
+    line = "band 1 4 over 11 in face 1"
+    record = parse_movie(f"start 6_1\n{line}").steps[-1].record
+    assert record.path == ((11, True),) and str(record) == line
+    outcome = perform(record, parse_diagram("6_1"))
+    assert outcome.diagram.component_count() == 2 and outcome.diagram.crossing_count() == 8
+    assert outcome.places.edges == (1, 4, 11) and outcome.places.faces == (1, 6)
+    assert outcome.transition.saddles == 1 and "along a path through faces 1, 6" in outcome.note
+    under = parse_movie("start 6_1\nband 1 4 under 11 in face 1").steps[-1].record
+    assert perform(under, parse_diagram("6_1")).diagram != outcome.diagram  # over and under differ
+    with pytest.raises(MoveError, match="crosses each edge at most once"):
+        perform(MoveRecord("band", first=1, second=4, path=((11, True), (11, False))), parse_diagram("6_1"))
+    with pytest.raises(MoveError, match="does not border"):
+        perform(MoveRecord("band", first=1, second=4, path=((3, True),), face=1), parse_diagram("6_1"))

@@ -32,10 +32,12 @@ twist       the edges a path (the gate) crosses in order; full twists on those s
 
 from movies.diagram.moves.base import NewNames
 from movies.diagram.moves.morse import SaddleResult, birth, common_faces, death, saddle
+from movies.diagram.moves.paths import PathBand, path_band
 from movies.diagram.moves.reidemeister import kinks_at, r1_add, r1_remove, r2_add, r2_remove, r3
 from movies.diagram.moves.twist import TwistResult, twist
 
 __all__ = [
+    "PathBand", "path_band",
     "NewNames", "r1_add", "r1_remove", "kinks_at", "r2_add", "r2_remove", "r3",
     "SaddleResult", "common_faces", "saddle", "birth", "death", "TwistResult", "twist",
 ]
