@@ -50,7 +50,7 @@ FIELDS = {
     "R2+": ("over", "under", "face", "names"),
     "R2-": ("face",),
     "R3": ("face", "names"),
-    "band": ("first", "second", "face", "names", "path"),
+    "band": ("first", "second", "face", "names", "path", "twists"),
     "birth": ("face", "counterclockwise", "names"),
     "death": ("component",),
     "cap": ("component",),
@@ -59,9 +59,9 @@ FIELDS = {
 #: every kind of move step
 KINDS = tuple(FIELDS)
 #: fields a record may leave out
-_OPTIONAL = {"kink", "names", "start_face", "path"} | {"band:face", "birth:counterclockwise"}
+_OPTIONAL = {"kink", "names", "start_face", "path", "twists"} | {"band:face", "birth:counterclockwise"}
 _ALL = ("edge", "hand", "sign", "crossing", "kink", "over", "under", "face", "first", "second",
-        "counterclockwise", "component", "edges", "turns", "start_face", "names", "path")
+        "counterclockwise", "component", "edges", "turns", "start_face", "names", "path", "twists")
 #: per kind, the fields it must have and the fields it must not
 _REQUIRED = {kind: tuple(name for name in fields if name not in _OPTIONAL and f"{kind}:{name}" not in _OPTIONAL)
              for kind, fields in FIELDS.items()}
@@ -103,6 +103,8 @@ class MoveRecord:
     names: NewNames | None = None
     #: a band's path: the edges its core crosses, in order, each (edge, True) over or (edge, False) under
     path: tuple[tuple[int, bool], ...] | None = None
+    #: a band's half twists, right-handed for positive numbers
+    twists: int | None = None
 
     def __post_init__(self) -> None:
         kind = self.kind
@@ -152,6 +154,7 @@ class MoveRecord:
         elif k == "band":
             text = (f"band {self.first} {self.second}"
                     + "".join(f" {'over' if over else 'under'} {edge}" for edge, over in self.path or ())
+                    + (f" twisted {self.twists:+d}" if self.twists else "")
                     + (f" in face {self.face}" if self.face is not None else ""))
         elif k == "birth":
             text = f"birth{'' if self.counterclockwise else ' cw'} in face {self.face}"
@@ -237,7 +240,8 @@ _CALL: dict[str, Callable[[Diagram, MoveRecord], object]] = {
     "R2+": lambda d, r: moves.r2_add(d, r.over, r.under, r.face, **_chosen(r)),
     "R2-": lambda d, r: moves.r2_remove(d, r.face),
     "R3": lambda d, r: moves.r3(d, r.face, **_chosen(r)),
-    "band": lambda d, r: (moves.path_band(d, r.first, r.second, r.path, r.face, **_chosen(r)) if r.path
+    "band": lambda d, r: (moves.path_band(d, r.first, r.second, r.path or (), r.face, twists=r.twists or 0,
+                                          **_chosen(r)) if r.path or r.twists
                           else moves.saddle(d, r.first, r.second, r.face, **_chosen(r))),
     "birth": lambda d, r: moves.birth(d, r.face, r.counterclockwise, **_chosen(r)),
     "death": lambda d, r: moves.death(d, r.component),
@@ -274,11 +278,16 @@ def perform(record: MoveRecord, diagram: Diagram) -> Outcome:
 
 def _outcome(record: MoveRecord, before: Diagram, result) -> Outcome:
     kind = record.kind
-    if kind == "band" and record.path:
-        crossed = tuple(edge for edge, _ in record.path)
+    if kind == "band" and (record.path or record.twists):
+        crossed = tuple(edge for edge, _ in record.path or ())
+        where = (f"along a path through faces {', '.join(map(str, result.faces))}" if crossed
+                 else f"across face {result.faces[0]}")
+        if record.twists:
+            where += f" with {abs(record.twists)} {'right' if record.twists > 0 else 'left'}-handed half twist" + (
+                "s" if abs(record.twists) > 1 else "")
         return Outcome(result.diagram, _band_transition(result.saddle),
                        Places(edges=(record.first, record.second) + crossed, faces=result.faces),
-                       _band_note(result.saddle, f"along a path through faces {', '.join(map(str, result.faces))}"))
+                       _band_note(result.saddle, where))
     if kind == "band":
         return Outcome(result.diagram, _band_transition(result),
                        Places(edges=(record.first, record.second), faces=(result.face,)), _band_note(result))
@@ -330,7 +339,8 @@ def growth(record: MoveRecord) -> tuple[int, int]:
         strands = len(record.edges)
         return abs(record.turns) * strands * (strands - 1), 0
     if kind == "band":
-        return 2 * len(record.path or ()), 0  # two crossings for each edge a band's path crosses
+        # two crossings for each edge a band's path crosses, one for each half twist
+        return 2 * len(record.path or ()) + abs(record.twists or 0), 0
     return {"R1+": 1, "R2+": 2}.get(kind, 0), int(kind == "birth")
 
 

@@ -337,9 +337,15 @@ class _Reader(Transformer):
     # ------------------------------------------------------------ moves
     @v_args(meta=True)
     def band(self, meta, c):
-        path = tuple(x for x in c[2:-2])
+        path = tuple(x for x in c[2:-3])
         return self._move(meta, "band", first=self.number(c[0]), second=self.number(c[1]), face=c[-2], names=c[-1],
-                          path=path or None)
+                          path=path or None, twists=c[-3])
+
+    def band_twists(self, children) -> int | None:
+        value = self.number(children[0])
+        if value == 0:
+            return None
+        return value
 
     def over_edge(self, children):
         return (self.number(children[0]), True)

@@ -91,3 +91,17 @@ def test_a_band_along_a_path_is_read_performed_marked_and_written_back():
         perform(MoveRecord("band", first=1, second=4, path=((11, True), (11, False))), parse_diagram("6_1"))
     with pytest.raises(MoveError, match="does not border"):
         perform(MoveRecord("band", first=1, second=4, path=((3, True),), face=1), parse_diagram("6_1"))
+
+
+@pytest.mark.parametrize("twists, name", [(3, "3_1"), (-3, "mirror(3_1)"), (5, "5_1")])
+def test_half_twisted_bands_on_the_unknot_make_the_two_strand_torus_knots(twists, name):
+    # a band from the unknot to itself with t half twists leaves the (2, t) torus link (common practice, no
+    # source); KnotInfo jones_polynomial of 3_1 and 5_1 (the right-handed ones) fixes which hand is which
+    from movies.invariants.jones import jones_polynomial
+
+    line = f"band 1 1 twisted {twists:+d} in face 1"
+    record = parse_movie(f"start unknot\n{line}").steps[-1].record
+    assert str(record) == line and record.twists == twists
+    outcome = perform(record, parse_diagram("unknot"))
+    assert jones_polynomial(outcome.diagram) == jones_polynomial(parse_diagram(name))
+    assert outcome.transition.twisted  # an odd number of half twists: a Moebius band

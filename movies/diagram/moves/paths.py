@@ -27,7 +27,7 @@ from typing import Sequence
 from movies.diagram.model import Diagram
 from movies.diagram.moves.base import NewNames, _check_edge
 from movies.diagram.moves.morse import SaddleResult, saddle
-from movies.diagram.moves.reidemeister import r2_add
+from movies.diagram.moves.reidemeister import r1_add, r2_add
 from movies.errors import MoveError
 
 __all__ = ["PathBand", "path_band", "path_faces"]
@@ -93,8 +93,13 @@ def path_faces(diagram: Diagram, first: int, second: int, path: Sequence[tuple[i
     return tuple(faces)
 
 
+#: the sign of the kinks that make right-handed half twists (three of them on an unknot's band
+#: give the right-handed trefoil; tested against the knot table)
+RIGHT_HANDED_KINK = -1
+
+
 def path_band(diagram: Diagram, first: int, second: int, path: Sequence[tuple[int, bool]],
-              face: int | None = None, names: NewNames | None = None) -> PathBand:
+              face: int | None = None, names: NewNames | None = None, twists: int = 0) -> PathBand:
     """A band from edge ``first`` to edge ``second`` whose core crosses the edges of ``path`` in
     order, each over (``True``) or under (``False``).
 
@@ -109,6 +114,10 @@ def path_band(diagram: Diagram, first: int, second: int, path: Sequence[tuple[in
         The face beside ``first`` where the path starts, when both would do.
     names : NewNames, optional
         Names for what the final band makes (the finger's moves name theirs in order).
+    twists : int
+        Half twists of the band, right-handed for positive numbers: made as kinks of the finger's
+        tip in the last face, the band leaving from the last kink's loop (its two sides then cross
+        once at each kink).
 
     Returns
     -------
@@ -129,4 +138,9 @@ def path_band(diagram: Diagram, first: int, second: int, path: Sequence[tuple[in
         tip = made_edges[0]  # r2_add names the pushed edge's stretch between the crossings first
         bigon = made_faces[0]
         here = next(f for f in current.faces_beside(tip) if f != bigon)
+    for _ in range(abs(twists)):
+        left, _right = current.faces_beside(tip)
+        before_edges = set(current.edges())
+        current = r1_add(current, tip, "L" if here == left else "R", RIGHT_HANDED_KINK if twists > 0 else -RIGHT_HANDED_KINK)
+        tip = min(set(current.edges()) - before_edges)  # r1_add names the kink's loop first
     return PathBand(saddle(current, tip, second, here, names), faces)
