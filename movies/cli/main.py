@@ -108,6 +108,22 @@ def build_parser() -> argparse.ArgumentParser:
     _limit_option(chk)
     chk.set_defaults(run=_run_check)
 
+    fnd = commands.add_parser(
+        "find",
+        help="find a surface: a ribbon disk for a knot, written as a movie and checked",
+        description=("Search for a surface and write it as a movie that movies check verifies. 'ribbon': bands "
+                     "that cut the knot into an unlink (one band across a face or along a path over or under one "
+                     "edge, or two bands across faces), then deaths. Prints the movie, the checker's verdict and "
+                     "the lower bounds for the 4-genus the invariants give."),
+    )
+    fnd.add_argument("what", choices=["ribbon"], help="what to find")
+    fnd.add_argument("spec", metavar="KNOT", help="the knot, in the diagram notation")
+    fnd.add_argument("--budget", metavar="SECONDS", default="60", help="time for the whole search (default 60)")
+    fnd.add_argument("-o", "--output", metavar="FILE.movie", help="also write the movie to this file")
+    fnd.add_argument("--json", action="store_true", help="print one JSON object")
+    _limit_option(fnd)
+    fnd.set_defaults(run=_run_find)
+
     tri = commands.add_parser(
         "try",
         help="what candidate steps would leave, before they are written into a movie",
@@ -448,6 +464,56 @@ def _draw(args: argparse.Namespace, label: str, diagram, gates) -> int:
     else:
         raise InputError(f"the output {args.output} should end in .svg or .png")
     return EXIT_OK
+
+
+def _run_find(args: argparse.Namespace) -> int:
+    """``movies find ribbon K``: a ribbon disk found by the band search, checked as a movie."""
+    from movies.bounds.inequalities import best_genus_bound
+    from movies.bounds.verdicts import knot_genus_bounds
+    from movies.checker.ribbon import find_ribbon_disk
+    from movies.invariants.alexander import determinant
+    from movies.language.spec import parse_diagram
+
+    budget = _seconds(args.budget)
+    knot = parse_diagram(args.spec)
+    if knot.component_count() != 1:
+        raise InputError(f"movies find ribbon is for knots; {args.spec} has {knot.component_count()} components")
+    import math
+
+    from movies.checker.ribbon import RibbonSearch
+
+    bounds = knot_genus_bounds(knot)
+    best = best_genus_bound(bounds)
+    det = abs(determinant(knot))
+    square = math.isqrt(det) ** 2 == det
+    if best.bound > 0 or not square:  # not slice: no disk to look for
+        why = (f"the knot is not slice: {best.invariant} gives g4 >= {best.bound}" if best.bound > 0 else
+               f"the knot is not slice: its determinant {det} is not a square (Fox–Milnor)")
+        found = RibbonSearch(args.spec, why=why)
+    else:
+        found = find_ribbon_disk(args.spec, budget)
+    data = {"knot": args.spec, "found": found.movie is not None, "verdict": found.verdict, "bands": list(found.bands),
+            "movie": found.movie, "candidates": found.tried, "why": found.why,
+            "four_genus_bounds": [{"invariant": b.invariant, "value": b.value, "bound": b.bound} for b in bounds],
+            "determinant": det, "fox_milnor": square,
+            "four_genus_certified": 0 if found.verdict == "verified" else None}
+    if args.output and found.movie:
+        _write(args.output, found.movie)
+    if args.json:
+        print(json.dumps(data))
+        return EXIT_OK if found.movie else EXIT_NOT_VERIFIED
+    lines = [args.spec]
+    lines += [f"  {b.invariant:<28} {b.value:>4}   g4 >= {b.bound}" for b in bounds]
+    lines.append(f"  determinant {det}: " + ("a square, as Fox–Milnor requires of a slice knot" if square else
+                                              "not a square, so by Fox–Milnor the knot is not slice"))
+    if found.movie:
+        lines += ["  found a ribbon disk (" + "; ".join(found.bands) + f"), checked: {found.verdict}",
+                  f"  4-genus certified: 0 (the disk; the best lower bound is {best.bound}, from {best.invariant})", ""]
+        lines += [found.movie.rstrip()]
+    else:
+        lines.append(f"  no ribbon disk found: {found.why}")
+    print("\n".join(lines))
+    return EXIT_OK if found.movie else EXIT_NOT_VERIFIED
 
 
 def _run_try(args: argparse.Namespace) -> int:

@@ -1,0 +1,37 @@
+"""The ribbon disk search: what it finds is a movie the checker verifies."""
+
+import json
+
+import pytest
+
+from movies.checker.replay import check_movie
+from movies.checker.ribbon import find_ribbon_disk
+from movies.cli.main import main
+from movies.diagram.tables import table_row
+
+
+@pytest.mark.parametrize("name", ["6_1", "8_8", "8_20", "9_46", "10_153", "11n_139"])
+def test_slice_knots_get_a_checked_ribbon_movie(name):
+    # KnotInfo column smooth_four_genus: 0 for each of these
+    assert table_row(name)["smooth_four_genus"] == "0"
+    found = find_ribbon_disk(name, budget=60)
+    assert found.verdict == "verified" and found.movie.startswith("title a ribbon disk")
+    # the movie stands on its own: checked again from its text
+    result = check_movie(found.movie)
+    assert result.verified and result.surface.components[0].genus == 0 and result.frames[-1].is_empty()
+
+
+def test_the_command_line_certifies_or_explains(tmp_path, capsys):
+    out = tmp_path / "r.movie"
+    assert main(["find", "ribbon", "6_1", "-o", str(out), "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert data["four_genus_certified"] == 0 and data["fox_milnor"] and check_movie(out.read_text()).verified
+    # KnotInfo rasmussen_invariant of 3_1 is 2: not slice, nothing to search for
+    assert main(["find", "ribbon", "3_1"]) == 1
+    assert "not slice: s over Q gives g4 >= 1" in capsys.readouterr().out
+    # Fox–Milnor: the determinant of 4_1 is 5 (KnotInfo determinant), not a square, though s and sigma vanish
+    assert table_row("4_1")["determinant"] == "5"
+    assert main(["find", "ribbon", "4_1"]) == 1
+    assert "determinant 5 is not a square (Fox–Milnor)" in capsys.readouterr().out
+    assert main(["find", "ribbon", "L2a1{0}"]) == 2
+    assert "is for knots" in capsys.readouterr().err
