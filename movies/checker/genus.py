@@ -1,0 +1,147 @@
+"""Finding surfaces of small genus: pairs of bands down to the unknot, written as a movie and checked.
+
+A connected surface of genus g from a knot to the unknot is, read inward, g pairs of bands (one
+splits the knot, the next joins the two pieces again: a genus-one piece; a crossing change is one
+such pair, the join sometimes along a path over or under one edge), then the unknot dies. The search is a beam search over these pairs: from each frame
+it keeps, it tries every split band and every join after it (both respecting the orientation),
+and it keeps the few knots that look nearest to the unknot: smallest lower bound from the
+signature, then smallest determinant, then fewest crossings. A knot whose determinant and Jones
+polynomial are the unknot's goes to the Reidemeister search; when that removes every crossing,
+the bands become a movie that :func:`movies.checker.replay.check_movie` must verify.
+
+>>> found = find_surface("5_2", budget=30)
+>>> found.verdict, found.genus
+('verified', 1)
+"""
+
+from __future__ import annotations
+
+import time
+from dataclasses import dataclass, field
+
+from movies.checker import search
+from movies.checker.replay import check_movie
+from movies.checker.ribbon import band_candidates
+from movies.diagram.model import Diagram
+from movies.diagram.steps import MoveRecord, perform
+from movies.errors import MoveError
+from movies.invariants.alexander import determinant
+from movies.invariants.jones import jones_polynomial
+from movies.invariants.signature import signature
+from movies.language.spec import parse_diagram
+
+__all__ = ["SurfaceSearch", "find_surface"]
+
+
+@dataclass
+class SurfaceSearch:
+    """What the search found: a verified movie of some genus, or why it stopped."""
+
+    knot: str
+    genus: int | None = None
+    movie: str | None = None
+    verdict: str | None = None
+    bands: tuple[str, ...] = ()
+    tried: int = 0
+    seconds: float = 0.0
+    why: str = ""
+
+
+def _banded(record: MoveRecord, diagram: Diagram, components: int):
+    """The frame a band leaves when it respects the orientation and leaves ``components`` components."""
+    try:
+        outcome = perform(record, diagram)
+    except MoveError:
+        return None
+    if outcome.diagram.component_count() != components or outcome.transition.twisted:
+        return None
+    if any(not same for _, _, same in outcome.transition.links):
+        return None
+    return outcome.diagram
+
+
+def _pairs(diagram: Diagram, paths: bool):
+    """(split band, join band, knot left) for every genus-one piece from ``diagram``, in a fixed order.
+
+    With ``paths`` the join may also run along a path over or under one edge (a crossing change
+    needs that at some crossings)."""
+    for first in band_candidates(diagram):
+        middle = _banded(first, diagram, 2)
+        if middle is None:
+            continue
+        joins = band_candidates(middle) + (band_candidates(middle, paths=True) if paths else [])
+        for second in joins:
+            if second.first == second.second:
+                continue
+            after = _banded(second, middle, 1)
+            if after is not None:
+                yield first, second, after
+
+
+def find_surface(knot: str, budget: float = 60.0, most_genus: int = 3, beam: int = 3,
+                 search_budget: float = 2.0) -> SurfaceSearch:
+    """Look for a connected surface of small genus from ``knot`` to the empty diagram.
+
+    Parameters
+    ----------
+    knot : str
+        A knot in the diagram notation.
+    budget : float
+        Seconds for the whole search.
+    most_genus : int
+        The largest genus tried.
+    beam : int
+        How many knots each level keeps.
+    search_budget : float
+        Seconds the Reidemeister search may take for each knot that looks like the unknot.
+
+    Returns
+    -------
+    SurfaceSearch
+        The smallest genus found at the first level that reaches the unknot, with its movie and
+        the checker's verdict.
+    """
+    started = time.perf_counter()
+    report = SurfaceSearch(knot)
+    start = parse_diagram(knot)
+    if start.component_count() != 1:
+        report.why = "the surface search is for knots"
+        return report
+    unknot_jones = jones_polynomial(parse_diagram("unknot"))
+    level: list[tuple[tuple[MoveRecord, ...], Diagram]] = [((), start)]
+    for genus in range(1, most_genus + 1):
+        scored = []
+        for records, frame in level:
+            for first, second, after in _pairs(frame, paths=genus == 1):
+                if time.perf_counter() - started > budget:
+                    report.why = f"it ran out of time ({budget:g} seconds) at genus {genus} after {report.tried} pieces"
+                    report.seconds = time.perf_counter() - started
+                    return report
+                report.tried += 1
+                chain = records + (first, second)
+                det = abs(determinant(after))
+                if det == 1 and jones_polynomial(after) == unknot_jones:
+                    found = search.simplify_frame(after, {"target": "crossingless"}, search_budget)
+                    if found.reached and _write(report, knot, chain, genus, search_budget):
+                        report.seconds = time.perf_counter() - started
+                        return report
+                scored.append(((abs(signature(after)) // 2, det, after.crossing_count()), len(scored), chain, after))
+        scored.sort(key=lambda item: item[:2])
+        level = [(chain, after) for _, _, chain, after in scored[:beam]]
+        if not level:
+            break
+    report.why = f"no surface of genus at most {most_genus} found ({report.tried} genus-one pieces tried)"
+    report.seconds = time.perf_counter() - started
+    return report
+
+
+def _write(report: SurfaceSearch, knot: str, chain: tuple[MoveRecord, ...], genus: int, budget: float) -> bool:
+    lines = [f"title a surface of genus {genus} for {knot}, found by the band search", f"start {knot}"]
+    lines += [str(r) for r in chain]
+    lines += ["simplify to crossingless", "death 1", f"surface connected, genus {genus}"]
+    text = "\n".join(lines) + "\n"
+    checked = check_movie(text, budget=budget)
+    if checked.verdict != "verified":
+        return False
+    report.genus, report.movie, report.verdict, report.bands = genus, text, checked.verdict, tuple(map(str, chain))
+    return True
