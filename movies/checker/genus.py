@@ -79,8 +79,9 @@ def _pairs(diagram: Diagram, paths: bool):
 
 
 def find_surface(knot: str, budget: float = 60.0, most_genus: int = 3, beam: int = 3,
-                 search_budget: float = 2.0) -> SurfaceSearch:
-    """Look for a connected surface of small genus from ``knot`` to the empty diagram.
+                 search_budget: float = 2.0, to: str | None = None) -> SurfaceSearch:
+    """Look for a connected surface of small genus from ``knot`` to the empty diagram (or to the
+    knot ``to``: a cobordism, ending with an isotopy claim the checker certifies).
 
     Parameters
     ----------
@@ -94,6 +95,8 @@ def find_surface(knot: str, budget: float = 60.0, most_genus: int = 3, beam: int
         How many knots each level keeps.
     search_budget : float
         Seconds the Reidemeister search may take for each knot that looks like the unknot.
+    to : str, optional
+        The other end of a cobordism, a knot in the diagram notation.
 
     Returns
     -------
@@ -107,7 +110,16 @@ def find_surface(knot: str, budget: float = 60.0, most_genus: int = 3, beam: int
     if start.component_count() != 1:
         report.why = "the surface search is for knots"
         return report
-    unknot_jones = jones_polynomial(parse_diagram("unknot"))
+    target = parse_diagram(to if to is not None else "unknot")
+    if target.component_count() != 1:
+        report.why = "the surface search is for knots"
+        return report
+    target_jones, target_det = jones_polynomial(target), abs(determinant(target))
+    target_signature = signature(target)
+    if to is not None and search.certify(start, target, search_budget).certified:
+        if _write(report, knot, (), 0, search_budget, to):  # the same knot: a concordance, genus 0
+            report.seconds = time.perf_counter() - started
+            return report
     level: list[tuple[tuple[MoveRecord, ...], Diagram]] = [((), start)]
     for genus in range(1, most_genus + 1):
         scored = []
@@ -120,12 +132,16 @@ def find_surface(knot: str, budget: float = 60.0, most_genus: int = 3, beam: int
                 report.tried += 1
                 chain = records + (first, second)
                 det = abs(determinant(after))
-                if det == 1 and jones_polynomial(after) == unknot_jones:
-                    found = search.simplify_frame(after, {"target": "crossingless"}, search_budget)
-                    if found.reached and _write(report, knot, chain, genus, search_budget):
+                if det == target_det and jones_polynomial(after) == target_jones:
+                    if to is None:
+                        reached = search.simplify_frame(after, {"target": "crossingless"}, search_budget).reached
+                    else:
+                        reached = search.certify(after, target, search_budget).certified
+                    if reached and _write(report, knot, chain, genus, search_budget, to):
                         report.seconds = time.perf_counter() - started
                         return report
-                scored.append(((abs(signature(after)) // 2, det, after.crossing_count()), len(scored), chain, after))
+                scored.append(((abs(signature(after) - target_signature) // 2, abs(det - target_det),
+                                after.crossing_count()), len(scored), chain, after))
         scored.sort(key=lambda item: item[:2])
         level = [(chain, after) for _, _, chain, after in scored[:beam]]
         if not level:
@@ -135,10 +151,13 @@ def find_surface(knot: str, budget: float = 60.0, most_genus: int = 3, beam: int
     return report
 
 
-def _write(report: SurfaceSearch, knot: str, chain: tuple[MoveRecord, ...], genus: int, budget: float) -> bool:
-    lines = [f"title a surface of genus {genus} for {knot}, found by the band search", f"start {knot}"]
+def _write(report: SurfaceSearch, knot: str, chain: tuple[MoveRecord, ...], genus: int, budget: float,
+           to: str | None = None) -> bool:
+    what = f"a surface of genus {genus} for {knot}" if to is None else f"a cobordism of genus {genus} from {knot} to {to}"
+    lines = [f"title {what}, found by the band search", f"start {knot}"]
     lines += [str(r) for r in chain]
-    lines += ["simplify to crossingless", "death 1", f"surface connected, genus {genus}"]
+    lines += ["simplify to crossingless", "death 1"] if to is None else [f"isotopic to {to}"]
+    lines.append(f"surface connected, genus {genus}")
     text = "\n".join(lines) + "\n"
     checked = check_movie(text, budget=budget)
     if checked.verdict != "verified":

@@ -123,6 +123,7 @@ def build_parser() -> argparse.ArgumentParser:
     fnd.add_argument("spec", metavar="KNOT", help="the knot, in the diagram notation")
     fnd.add_argument("--budget", metavar="SECONDS", default="60", help="time for the whole search (default 60)")
     fnd.add_argument("-o", "--output", metavar="FILE.movie", help="also write the movie to this file")
+    fnd.add_argument("--to", metavar="KNOT", help="for 'surface': a cobordism to this knot instead of a surface to nothing")
     fnd.add_argument("--json", action="store_true", help="print one JSON object")
     _limit_option(fnd)
     fnd.set_defaults(run=_run_find)
@@ -489,10 +490,32 @@ def _run_find(args: argparse.Namespace) -> int:
     best = best_genus_bound(bounds)
     det = abs(determinant(knot))
     square = math.isqrt(det) ** 2 == det
+    if not square and best.bound == 0:
+        from movies.bounds.inequalities import GenusBound
+
+        # Fox–Milnor (1966): a slice knot's Alexander polynomial is f(t) f(1/t), so its determinant is a square
+        best = GenusBound("Fox–Milnor (the determinant is not a square)", det, 1, "Fox–Milnor 1966")
+    if args.to is not None and args.what != "surface":
+        raise InputError("--to is for 'movies find surface' (a cobordism between two knots)")
+    if args.what == "surface" and args.to is not None:
+        from movies.bounds.verdicts import s_values
+        from movies.invariants.signature import signature
+
+        other = parse_diagram(args.to)
+        if other.component_count() != 1:
+            raise InputError(f"--to takes a knot; {args.to} has {other.component_count()} components")
+        one, two = s_values(knot), s_values(other)
+        # Rasmussen 2010 (and over F2 likewise): |s(K) - s(K')| <= 2 g of a cobordism; Murasugi for signatures
+        candidates = [(abs(one[f] - two[f]), f"s over {f}") for f in one]
+        candidates.append((abs(signature(knot) - signature(other)), "signature"))
+        from movies.bounds.inequalities import GenusBound
+
+        bounds = [GenusBound(name, value, value // 2, "") for value, name in candidates]
+        best = max(bounds, key=lambda b: b.bound)
     if args.what == "surface":
         from movies.checker.genus import find_surface
 
-        found = find_surface(args.spec, budget)
+        found = find_surface(args.spec, budget, to=args.to)
         genus = found.genus
     elif best.bound > 0 or not square:  # not slice: no disk to look for
         why = (f"the knot is not slice: {best.invariant} gives g4 >= {best.bound}" if best.bound > 0 else
@@ -501,17 +524,42 @@ def _run_find(args: argparse.Namespace) -> int:
     else:
         found = find_ribbon_disk(args.spec, budget)
         genus = 0 if found.movie else None
-    data = {"knot": args.spec, "found": found.movie is not None, "verdict": found.verdict, "bands": list(found.bands),
-            "movie": found.movie, "candidates": found.tried, "why": found.why,
-            "four_genus_bounds": [{"invariant": b.invariant, "value": b.value, "bound": b.bound} for b in bounds],
-            "determinant": det, "fox_milnor": square, "genus": genus if found.verdict == "verified" else None,
-            "best_lower_bound": best.bound,
-            "four_genus_certified": genus if found.verdict == "verified" and genus == best.bound else None}
+    cobordism = args.to is not None
+    certified = genus if found.verdict == "verified" and genus == best.bound else None
+    data = {"knot": args.spec, "to": args.to, "found": found.movie is not None, "verdict": found.verdict,
+            "bands": list(found.bands), "movie": found.movie, "candidates": found.tried, "why": found.why,
+            ("genus_bounds" if cobordism else "four_genus_bounds"):
+                [{"invariant": b.invariant, "value": b.value, "bound": b.bound} for b in bounds],
+            "genus": genus if found.verdict == "verified" else None, "best_lower_bound": best.bound,
+            **({"genus_certified": certified} if cobordism else
+               {"determinant": det, "fox_milnor": square, "four_genus_certified": certified})}
     if args.output and found.movie:
         _write(args.output, found.movie)
     if args.json:
         print(json.dumps(data))
         return EXIT_OK if found.movie else EXIT_NOT_VERIFIED
+    quantity = "the genus of a cobordism to " + args.to if cobordism else "g4"
+    lines = [args.spec if not cobordism else f"{args.spec} to {args.to}"]
+    if cobordism:
+        lines += [f"  difference of {b.invariant:<18} {b.value:>4}   genus >= {b.bound}" for b in bounds]
+    else:
+        lines += [f"  {b.invariant:<28} {b.value:>4}   g4 >= {b.bound}" for b in bounds]
+        lines.append(f"  determinant {det}: " + ("a square, as Fox–Milnor requires of a slice knot" if square else
+                                                  "not a square, so by Fox–Milnor the knot is not slice"))
+    what = "a ribbon disk" if args.what == "ribbon" else "a cobordism" if cobordism else "a surface"
+    if found.movie:
+        lines.append(f"  found {what} of genus {genus} (" + ("; ".join(found.bands) or "an isotopy")
+                     + f"), checked: {found.verdict}")
+        if certified is not None:
+            lines.append(f"  {'cobordism genus' if cobordism else '4-genus'} certified: {genus} (the surface found; "
+                         f"{best.invariant} gives {'genus' if cobordism else 'g4'} >= {best.bound})")
+        else:
+            lines.append(f"  {quantity} is between {best.bound} ({best.invariant}) and {genus} (the surface found)")
+        lines += ["", found.movie.rstrip()]
+    else:
+        lines.append(f"  no {what[2:]} found: {found.why}")
+    print("\n".join(lines))
+    return EXIT_OK if found.movie else EXIT_NOT_VERIFIED
     lines = [args.spec]
     lines += [f"  {b.invariant:<28} {b.value:>4}   g4 >= {b.bound}" for b in bounds]
     lines.append(f"  determinant {det}: " + ("a square, as Fox–Milnor requires of a slice knot" if square else

@@ -26,3 +26,21 @@ def test_the_command_line_certifies_the_genus(capsys):
     # KnotInfo rasmussen_invariant of 5_2 is 2: s gives g4 >= 1, and the surface has genus 1
     assert data["genus"] == 1 and data["best_lower_bound"] == 1 and data["four_genus_certified"] == 1
     assert main(["find", "surface", "L2a1{0}"]) == 2
+
+
+def test_fox_milnor_certifies_genus_one_where_s_and_the_signature_vanish(capsys):
+    # KnotInfo: 4_1 has rasmussen_invariant 0, signature 0, determinant 5 and smooth_four_genus 1
+    assert main(["find", "surface", "4_1", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert data["best_lower_bound"] == 1 and data["four_genus_certified"] == 1 == int(table_row("4_1")["smooth_four_genus"])
+
+
+def test_a_cobordism_between_two_knots(capsys):
+    found = find_surface("7_1", budget=60, to="5_1")
+    result = check_movie(found.movie)
+    assert result.verified and result.surface.components[0].genus == 1 == found.genus
+    # KnotInfo rasmussen_invariant: s(7_1) = 6, s(5_1) = 4, so every cobordism has genus >= 1 (Rasmussen 2010)
+    assert main(["find", "surface", "7_1", "--to", "5_1", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert data["genus_certified"] == 1 and "four_genus_certified" not in data
+    assert main(["find", "ribbon", "6_1", "--to", "3_1"]) == 2
