@@ -32,6 +32,6 @@ def test_the_command_line_certifies_or_explains(tmp_path, capsys):
     # Fox–Milnor: the determinant of 4_1 is 5 (KnotInfo determinant), not a square, though s and sigma vanish
     assert table_row("4_1")["determinant"] == "5"
     assert main(["find", "ribbon", "4_1"]) == 1
-    assert "determinant 5 is not a square (Fox–Milnor)" in capsys.readouterr().out
+    assert "not slice: Fox–Milnor (the determinant is not a square) gives g4 >= 1" in capsys.readouterr().out
     assert main(["find", "ribbon", "L2a1{0}"]) == 2
     assert "is for knots" in capsys.readouterr().err
