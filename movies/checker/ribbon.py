@@ -4,7 +4,7 @@ A ribbon disk with r bands is, read inward, r bands that each split a component 
 surface stays orientable and planar) leaving an unlink of r + 1 components, then r + 1 deaths.
 The search tries band sequences in a fixed order, cheapest first:
 
-1. one band across a face, then one band along a path over or under one edge;
+1. one band across a face, then one band along a path over or under one edge, then two;
 2. two bands across faces (the second on the frame the first leaves).
 
 Each candidate is pruned by what an unlink must have, cheapest test first: the number of
@@ -50,33 +50,39 @@ class RibbonSearch:
     notes: list[str] = field(default_factory=list)
 
 
-def band_candidates(diagram: Diagram, paths: bool = False) -> list[MoveRecord]:
-    """Bands that split a component and respect the orientation, in a fixed order.
-
-    With ``paths``, the bands whose path crosses one edge (over, then under) instead of those
-    across one face.
+def band_candidates(diagram: Diagram, paths: bool = False, crossings: int | None = None) -> list[MoveRecord]:
+    """Bands in a fixed order: across one face, or (``paths``) along paths crossing ``crossings``
+    edges (default 1), over or under each.
 
     >>> [str(r) for r in band_candidates(parse_diagram("unknot"))]
     ['band 1 1 in face 1', 'band 1 1 in face 2']
     """
+    depth = 0 if not paths else (1 if crossings is None else crossings)
     out = []
     for face in sorted(diagram.faces):
         edges = sorted({side.edge for cycle in diagram.faces[face] for side in cycle})
-        if not paths:
-            pairs = [(a, b) for a in edges for b in edges if a <= b]
-            out.extend(MoveRecord("band", first=a, second=b, face=face) for a, b in pairs)
+        if depth == 0:
+            out.extend(MoveRecord("band", first=a, second=b, face=face) for a in edges for b in edges if a <= b)
             continue
         for a in edges:
-            for crossed in edges:
-                if crossed == a:
-                    continue
-                left, right = diagram.faces_beside(crossed)
-                beyond = right if left == face else left
-                targets = sorted({side.edge for cycle in diagram.faces[beyond] for side in cycle} - {a, crossed})
-                for b in targets:
-                    for over in (True, False):
-                        out.append(MoveRecord("band", first=a, second=b, face=face, path=((crossed, over),)))
+            for path, last in _paths(diagram, face, depth, (a,)):
+                used = {a} | {edge for edge, _ in path}
+                for b in sorted({side.edge for cycle in diagram.faces[last] for side in cycle} - used):
+                    out.append(MoveRecord("band", first=a, second=b, face=face, path=path))
     return out
+
+
+def _paths(diagram: Diagram, face: int, depth: int, used: tuple[int, ...]):
+    """Paths of ``depth`` crossings from ``face``: (((edge, over), ...), the face they end in)."""
+    if depth == 0:
+        yield (), face
+        return
+    for crossed in sorted({side.edge for cycle in diagram.faces[face] for side in cycle} - set(used)):
+        left, right = diagram.faces_beside(crossed)
+        beyond = right if left == face else left
+        for rest, last in _paths(diagram, beyond, depth - 1, used + (crossed,)):
+            for over in (True, False):
+                yield ((crossed, over),) + rest, last
 
 
 def _splits(record: MoveRecord, diagram: Diagram):
@@ -147,8 +153,8 @@ def find_ribbon_disk(knot: str, budget: float = 60.0, search_budget: float = 2.0
         report.movie, report.verdict, report.bands = text, checked.verdict, tuple(str(r) for r in records)
         return True
 
-    for paths in (False, True):  # one band: across a face, then along a path over or under one edge
-        for record in band_candidates(start, paths):
+    for crossings in (0, 1, 2):  # one band: across a face, then along paths crossing one or two edges
+        for record in band_candidates(start, paths=crossings > 0, crossings=crossings):
             if out_of_time():
                 report.why = f"it ran out of time ({budget:g} seconds) after {report.tried} candidates"
                 break
@@ -172,7 +178,8 @@ def find_ribbon_disk(knot: str, budget: float = 60.0, search_budget: float = 2.0
             if report.movie or report.why:
                 break
     if report.movie is None and not report.why:
-        report.why = f"no band sequence it tries (one band, or two across faces) leaves an unlink ({report.tried} candidates)"
+        report.why = (f"no band sequence it tries (one band across a face or along a path crossing up to two edges, "
+                      f"or two bands across faces) leaves an unlink ({report.tried} candidates)")
     report.seconds = time.perf_counter() - started
     return report
 

@@ -112,8 +112,8 @@ def build_parser() -> argparse.ArgumentParser:
         "find",
         help="find a surface: a ribbon disk for a knot, written as a movie and checked",
         description=("Search for a surface and write it as a movie that movies check verifies. 'ribbon': bands "
-                     "that cut the knot into an unlink (one band across a face or along a path over or under one "
-                     "edge, or two bands across faces), then deaths. 'surface': pairs of bands (a split and a join, "
+                     "that cut the knot into an unlink (one band across a face or along a path over or under one or two "
+                     "or two edges, or two bands across faces), then deaths. 'surface': pairs of bands (a split and a join, "
                      "a genus-one piece) down to the unknot, then a death, the genus as small as it finds. Prints "
                      "the movie, the checker's verdict and the lower bounds for the 4-genus the invariants give, "
                      "and '4-genus certified' when they meet."),
