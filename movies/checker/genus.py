@@ -79,7 +79,7 @@ def _pairs(diagram: Diagram, paths: bool):
 
 
 def find_surface(knot: str, budget: float = 60.0, most_genus: int = 3, beam: int = 3,
-                 search_budget: float = 2.0, to: str | None = None) -> SurfaceSearch:
+                 search_budget: float = 2.0, to: str | None = None, progress=None) -> SurfaceSearch:
     """Look for a connected surface of small genus from ``knot`` to the empty diagram (or to the
     knot ``to``: a cobordism, ending with an isotopy claim the checker certifies).
 
@@ -97,13 +97,22 @@ def find_surface(knot: str, budget: float = 60.0, most_genus: int = 3, beam: int
         Seconds the Reidemeister search may take for each knot that looks like the unknot.
     to : str, optional
         The other end of a cobordism, a knot in the diagram notation.
+    progress : callable, optional
+        Called with a line of text about every two seconds of searching.
 
     Returns
     -------
     SurfaceSearch
         The smallest genus found at the first level that reaches the unknot, with its movie and
-        the checker's verdict.
+        the checker's verdict; or why it stopped (Ctrl-C ends the search and is reported here).
     """
+    try:
+        return _find_surface(knot, budget, most_genus, beam, search_budget, to, progress)
+    except KeyboardInterrupt:
+        return SurfaceSearch(knot, why="stopped by Ctrl-C before a surface was found")
+
+
+def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -> SurfaceSearch:
     started = time.perf_counter()
     report = SurfaceSearch(knot)
     start = parse_diagram(knot)
@@ -121,11 +130,16 @@ def find_surface(knot: str, budget: float = 60.0, most_genus: int = 3, beam: int
             report.seconds = time.perf_counter() - started
             return report
     level: list[tuple[tuple[MoveRecord, ...], Diagram]] = [((), start)]
+    said = started
     for genus in range(1, most_genus + 1):
         scored = []
         for records, frame in level:
             for first, second, after in _pairs(frame, paths=genus == 1):
-                if time.perf_counter() - started > budget:
+                now = time.perf_counter()
+                if progress is not None and now - said > 2:
+                    said = now
+                    progress(f"surface search for {knot}: genus {genus}, {report.tried} pieces in {now - started:.0f} s")
+                if now - started > budget:
                     report.why = f"it ran out of time ({budget:g} seconds) at genus {genus} after {report.tried} pieces"
                     report.seconds = time.perf_counter() - started
                     return report

@@ -105,7 +105,7 @@ def _unlink_by_invariants(diagram: Diagram) -> bool:
     return jones_polynomial(diagram) == jones_polynomial(unlink(n))
 
 
-def find_ribbon_disk(knot: str, budget: float = 60.0, search_budget: float = 2.0) -> RibbonSearch:
+def find_ribbon_disk(knot: str, budget: float = 60.0, search_budget: float = 2.0, progress=None) -> RibbonSearch:
     """Look for a ribbon disk of ``knot`` (a diagram in the notation), and check it as a movie.
 
     Parameters
@@ -116,12 +116,22 @@ def find_ribbon_disk(knot: str, budget: float = 60.0, search_budget: float = 2.0
         Seconds for the whole search.
     search_budget : float
         Seconds the Reidemeister search may take for each candidate that passes the invariants.
+    progress : callable, optional
+        Called with a line of text about every two seconds of searching.
 
     Returns
     -------
     RibbonSearch
-        ``movie`` and ``verdict`` (``verified``) when found; otherwise ``why`` it stopped.
+        ``movie`` and ``verdict`` (``verified``) when found; otherwise ``why`` it stopped (the
+        budget, the candidates exhausted, or Ctrl-C, which ends the search and is reported here).
     """
+    try:
+        return _find_ribbon_disk(knot, budget, search_budget, progress)
+    except KeyboardInterrupt:
+        return RibbonSearch(knot, why="stopped by Ctrl-C before a ribbon disk was found")
+
+
+def _find_ribbon_disk(knot: str, budget: float, search_budget: float, progress) -> RibbonSearch:
     started = time.perf_counter()
     start = parse_diagram(knot)
     report = RibbonSearch(knot)
@@ -129,8 +139,14 @@ def find_ribbon_disk(knot: str, budget: float = 60.0, search_budget: float = 2.0
         report.why = "the ribbon search is for knots"
         return report
 
+    said = [started]
+
     def out_of_time() -> bool:
-        return time.perf_counter() - started > budget
+        now = time.perf_counter()
+        if progress is not None and now - said[0] > 2:
+            said[0] = now
+            progress(f"ribbon search for {knot}: {report.tried} candidates in {now - started:.0f} s")
+        return now - started > budget
 
     def finish(records: list[MoveRecord], frame: Diagram) -> bool:
         report.tried += 1

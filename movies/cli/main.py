@@ -470,6 +470,13 @@ def _draw(args: argparse.Namespace, label: str, diagram, gates) -> int:
     return EXIT_OK
 
 
+def _say_progress():
+    """Progress lines on standard error when it is a terminal (nothing in pipes and logs)."""
+    if not sys.stderr.isatty():
+        return None
+    return lambda line: print(line, file=sys.stderr, flush=True)
+
+
 def _run_find(args: argparse.Namespace) -> int:
     """``movies find ribbon K``: a ribbon disk found by the band search, checked as a movie."""
     from movies.bounds.inequalities import best_genus_bound
@@ -515,14 +522,14 @@ def _run_find(args: argparse.Namespace) -> int:
     if args.what == "surface":
         from movies.checker.genus import find_surface
 
-        found = find_surface(args.spec, budget, to=args.to)
+        found = find_surface(args.spec, budget, to=args.to, progress=_say_progress())
         genus = found.genus
     elif best.bound > 0 or not square:  # not slice: no disk to look for
         why = (f"the knot is not slice: {best.invariant} gives g4 >= {best.bound}" if best.bound > 0 else
                f"the knot is not slice: its determinant {det} is not a square (Fox–Milnor)")
         found, genus = RibbonSearch(args.spec, why=why), None
     else:
-        found = find_ribbon_disk(args.spec, budget)
+        found = find_ribbon_disk(args.spec, budget, progress=_say_progress())
         genus = 0 if found.movie else None
     cobordism = args.to is not None
     certified = genus if found.verdict == "verified" and genus == best.bound else None
@@ -559,6 +566,8 @@ def _run_find(args: argparse.Namespace) -> int:
     else:
         lines.append(f"  no {what[2:]} found: {found.why}")
     print("\n".join(lines))
+    if found.why.startswith("stopped by Ctrl-C"):
+        return EXIT_INTERRUPTED
     return EXIT_OK if found.movie else EXIT_NOT_VERIFIED
     lines = [args.spec]
     lines += [f"  {b.invariant:<28} {b.value:>4}   g4 >= {b.bound}" for b in bounds]
@@ -575,6 +584,8 @@ def _run_find(args: argparse.Namespace) -> int:
     else:
         lines.append(f"  no {what[2:]} found: {found.why}")
     print("\n".join(lines))
+    if found.why.startswith("stopped by Ctrl-C"):
+        return EXIT_INTERRUPTED
     return EXIT_OK if found.movie else EXIT_NOT_VERIFIED
 
 

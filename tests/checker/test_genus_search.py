@@ -44,3 +44,21 @@ def test_a_cobordism_between_two_knots(capsys):
     data = json.loads(capsys.readouterr().out)
     assert data["genus_certified"] == 1 and "four_genus_certified" not in data
     assert main(["find", "ribbon", "6_1", "--to", "3_1"]) == 2
+
+
+def test_a_search_reports_progress_and_stops_on_ctrl_c():
+    from movies.checker.ribbon import find_ribbon_disk
+
+    lines = []
+
+    def interrupt(line):
+        lines.append(line)
+        raise KeyboardInterrupt
+
+    import movies.checker.genus as genus_module
+
+    # a search that runs long enough to report: 7_1 needs genus 3; the first report stops it
+    found = genus_module.find_surface("7_1", budget=60, progress=interrupt)
+    assert found.why == "stopped by Ctrl-C before a surface was found" and lines[0].startswith("surface search for 7_1")
+    found = find_ribbon_disk("12a_631", budget=60, progress=interrupt)
+    assert found.why == "stopped by Ctrl-C before a ribbon disk was found"
