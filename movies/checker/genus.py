@@ -2,8 +2,10 @@
 
 A connected surface of genus g from a knot to the unknot is, read inward, g pairs of bands (one
 splits the knot, the next joins the two pieces again: a genus-one piece; a crossing change is one
-such pair, the join sometimes along a path over or under one edge), then the unknot dies. The search is a beam search over these pairs: from each frame
-it keeps, it tries every split band and every join after it (both respecting the orientation),
+such pair, the join sometimes along a path over or under one edge), then the unknot dies. It
+first changes sets of crossings (each by its pair of bands), as many as the lower bound from s,
+the signature and Fox–Milnor and then more; then it runs a beam search over these pairs: from
+each frame it keeps, it tries every split band and every join after it (both respecting the orientation),
 and it keeps the few knots that look nearest to the unknot: smallest lower bound from the
 signature, then smallest determinant, then fewest crossings. A knot whose determinant and Jones
 polynomial are the unknot's goes to the Reidemeister search; when that removes every crossing,
@@ -24,7 +26,7 @@ from movies.checker.replay import check_movie
 from movies.checker.ribbon import band_candidates
 from movies.diagram.model import Diagram
 from movies.diagram.steps import MoveRecord, perform
-from movies.errors import MoveError
+from movies.errors import MoveError, MoviesError
 from movies.invariants.alexander import determinant
 from movies.invariants.jones import jones_polynomial
 from movies.invariants.signature import signature
@@ -78,7 +80,61 @@ def _pairs(diagram: Diagram, paths: bool):
                 yield first, second, after
 
 
-def find_surface(knot: str, budget: float = 60.0, most_genus: int = 3, beam: int = 3,
+def switched(diagram: Diagram, crossing: int) -> Diagram:
+    """The diagram with ``crossing`` changed (the other strand over), names kept.
+
+    >>> switched(parse_diagram("3_1"), 1).writhe()
+    1
+    """
+    from movies.diagram.pd import from_pd
+
+    names = sorted(diagram.crossings)
+    code = [tuple(c) for c in diagram.pd_code()]
+    index = names.index(crossing)
+    a, b, c, d = code[index]
+    for rotated in ((b, c, d, a), (d, a, b, c)):  # read from the old over-strand's incoming edge
+        trial = code[:index] + [rotated] + code[index + 1:]
+        try:
+            result = from_pd(trial, diagram.loop_count())
+        except MoviesError:
+            continue
+        if result.writhe() == diagram.writhe() - 2 * diagram.signs[crossing]:
+            return result
+    raise MoveError(f"crossing {crossing} could not be changed")  # pragma: no cover - one rotation always reads
+
+
+def crossing_change_bands(diagram: Diagram, crossing: int, budget: float = 1.0) -> tuple[MoveRecord, MoveRecord] | None:
+    """Two bands (a split at a corner of ``crossing``, then a join) that change that crossing, up to isotopy.
+
+    A crossing change is a genus-one piece: the oriented resolution of the crossing is one band
+    away from either sign. The pair is found by trying the corner bands and the joins after them
+    against the switched diagram (Jones polynomial, then the Reidemeister search).
+
+    >>> first, second = crossing_change_bands(parse_diagram("3_1"), 1)
+    >>> perform(second, perform(first, parse_diagram("3_1")).diagram).diagram.component_count()
+    1
+    """
+    target = switched(diagram, crossing)
+    target_jones = jones_polynomial(target)
+    corner_edges = set(diagram.crossing(crossing))
+    for first in band_candidates(diagram):
+        if first.first not in corner_edges or first.second not in corner_edges or first.first == first.second:
+            continue
+        middle = _banded(first, diagram, diagram.component_count() + 1)
+        if middle is None:
+            continue
+        for second in band_candidates(middle):
+            if second.first == second.second:
+                continue
+            after = _banded(second, middle, diagram.component_count())
+            if after is None or jones_polynomial(after) != target_jones:
+                continue
+            if search.certify(after, target, budget).certified:
+                return first, second
+    return None
+
+
+def find_surface(knot: str, budget: float = 60.0, most_genus: int | None = None, beam: int = 3,
                  search_budget: float = 2.0, to: str | None = None, progress=None) -> SurfaceSearch:
     """Look for a connected surface of small genus from ``knot`` to the empty diagram (or to the
     knot ``to``: a cobordism, ending with an isotopy claim the checker certifies).
@@ -89,8 +145,8 @@ def find_surface(knot: str, budget: float = 60.0, most_genus: int = 3, beam: int
         A knot in the diagram notation.
     budget : float
         Seconds for the whole search.
-    most_genus : int
-        The largest genus tried.
+    most_genus : int, optional
+        The largest genus tried (default: one more than the lower bound, and at least 3).
     beam : int
         How many knots each level keeps.
     search_budget : float
@@ -131,10 +187,29 @@ def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -
             return report
     level: list[tuple[tuple[MoveRecord, ...], Diagram]] = [((), start)]
     said = started
+
+    def reaches(after: Diagram) -> bool:
+        if abs(determinant(after)) != target_det or jones_polynomial(after) != target_jones:
+            return False
+        if to is None:
+            return search.simplify_frame(after, {"target": "crossingless"}, search_budget).reached
+        return search.certify(after, target, search_budget).certified
+
+    least = _lower_bound(start, target)
+    if most_genus is None:
+        most_genus = max(3, least + 1)
     for genus in range(1, most_genus + 1):
+        if genus >= least:  # the cheap guess first: change `genus` crossings, each by its pair of bands
+            for chain, after in _crossing_changes(start, genus, started, budget):
+                report.tried += 1
+                if reaches(after) and _write(report, knot, chain, genus, search_budget, to):
+                    report.seconds = time.perf_counter() - started
+                    return report
         scored = []
         for records, frame in level:
-            for first, second, after in _pairs(frame, paths=genus == 1):
+            # below the bound no surface can end here: the next level comes from crossing changes alone
+            pieces = _pairs(frame, paths=genus == 1) if genus >= least else _single_changes(frame)
+            for first, second, after in pieces:
                 now = time.perf_counter()
                 if progress is not None and now - said > 2:
                     said = now
@@ -145,15 +220,10 @@ def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -
                     return report
                 report.tried += 1
                 chain = records + (first, second)
+                if genus >= least and reaches(after) and _write(report, knot, chain, genus, search_budget, to):
+                    report.seconds = time.perf_counter() - started
+                    return report
                 det = abs(determinant(after))
-                if det == target_det and jones_polynomial(after) == target_jones:
-                    if to is None:
-                        reached = search.simplify_frame(after, {"target": "crossingless"}, search_budget).reached
-                    else:
-                        reached = search.certify(after, target, search_budget).certified
-                    if reached and _write(report, knot, chain, genus, search_budget, to):
-                        report.seconds = time.perf_counter() - started
-                        return report
                 scored.append(((abs(signature(after) - target_signature) // 2, abs(det - target_det),
                                 after.crossing_count()), len(scored), chain, after))
         scored.sort(key=lambda item: item[:2])
@@ -163,6 +233,48 @@ def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -
     report.why = f"no surface of genus at most {most_genus} found ({report.tried} genus-one pieces tried)"
     report.seconds = time.perf_counter() - started
     return report
+
+
+def _lower_bound(start: Diagram, target: Diagram) -> int:
+    """No connected surface between the two knots has smaller genus: half the difference of s
+    over Q and of the signatures (Rasmussen 2010, Murasugi 1965), and 1 when the determinants'
+    product is not a square (Fox–Milnor 1966: K # m(K') is then not slice)."""
+    import math
+
+    from movies.bounds.verdicts import s_values
+
+    bound = max(abs(s_values(start)["Q"] - s_values(target)["Q"]), abs(signature(start) - signature(target))) // 2
+    product = abs(determinant(start)) * abs(determinant(target))
+    return max(bound, 0 if math.isqrt(product) ** 2 == product else 1)
+
+
+def _single_changes(frame: Diagram):
+    """(split band, join band, knot left) for each crossing that its pair of bands changes."""
+    for crossing in sorted(frame.crossings):
+        pair = crossing_change_bands(frame, crossing)
+        if pair is not None:
+            yield pair[0], pair[1], perform(pair[1], perform(pair[0], frame).diagram).diagram
+
+
+def _crossing_changes(start: Diagram, count: int, started: float, budget: float):
+    """(bands, knot left) for every set of ``count`` crossings changed one after another, in order."""
+    from itertools import combinations
+
+    for crossings in combinations(sorted(start.crossings), count):
+        chain: tuple[MoveRecord, ...] = ()
+        frame = start
+        for crossing in crossings:
+            if time.perf_counter() - started > budget or crossing not in frame.crossings:
+                break
+            pair = crossing_change_bands(frame, crossing)
+            if pair is None:
+                break
+            frame = perform(pair[1], perform(pair[0], frame).diagram).diagram
+            chain += pair
+        else:
+            yield chain, frame
+        if time.perf_counter() - started > budget:
+            return
 
 
 def _write(report: SurfaceSearch, knot: str, chain: tuple[MoveRecord, ...], genus: int, budget: float,
