@@ -106,7 +106,8 @@ def _unlink_by_invariants(diagram: Diagram) -> bool:
 
 
 def find_ribbon_disk(knot: str, budget: float = 60.0, search_budget: float = 2.0, progress=None) -> RibbonSearch:
-    """Look for a ribbon disk of ``knot`` (a diagram in the notation), and check it as a movie.
+    """Look for a ribbon disk of ``knot`` (a diagram in the notation), and check it as a movie; for
+    a link, one ribbon disk for each component, disjoint.
 
     Parameters
     ----------
@@ -135,9 +136,7 @@ def _find_ribbon_disk(knot: str, budget: float, search_budget: float, progress) 
     started = time.perf_counter()
     start = parse_diagram(knot)
     report = RibbonSearch(knot)
-    if start.component_count() != 1:
-        report.why = "the ribbon search is for knots"
-        return report
+    pieces = start.component_count()  # a link gets one disk for each component
 
     said = [started]
 
@@ -155,11 +154,11 @@ def _find_ribbon_disk(knot: str, budget: float, search_budget: float, progress) 
         found = search.simplify_frame(frame, {"target": "crossingless"}, search_budget)
         if not found.reached:
             return False
-        lines = [f"title a ribbon disk for {knot}, found by the band search", f"start {knot}"]
+        lines = [f"title {'a ribbon disk' if pieces == 1 else 'ribbon disks'} for {knot}, found by the band search", f"start {knot}"]
         lines += [str(r) for r in records]
-        lines += [f"expect components {frame.component_count()}", "simplify to crossingless"]
+        lines += ([f"expect components {frame.component_count()}"] if records else []) + ["simplify to crossingless"]
         lines += [f"death {k}" for k in sorted(frame.components)]
-        lines.append("surface disk, ribbon")
+        lines.append("surface disk, ribbon" if pieces == 1 else f"surface components {pieces}, genus 0, ribbon")
         text = "\n".join(lines) + "\n"
         # the components keep their names through the Reidemeister moves; the checker replays it all
         checked = check_movie(text, budget=search_budget)
@@ -169,6 +168,10 @@ def _find_ribbon_disk(knot: str, budget: float, search_budget: float, progress) 
         report.movie, report.verdict, report.bands = text, checked.verdict, tuple(str(r) for r in records)
         return True
 
+    if finish([], start):  # already an unlink: the disks need no band
+        report.seconds = time.perf_counter() - started
+        return report
+    report.tried = 0
     for crossings in (0, 1, 2):  # one band: across a face, then along paths crossing one or two edges
         for record in band_candidates(start, paths=crossings > 0, crossings=crossings):
             if out_of_time():

@@ -477,6 +477,42 @@ def _say_progress():
     return lambda line: print(line, file=sys.stderr, flush=True)
 
 
+def _find_link_ribbon(args: argparse.Namespace, link, budget: float) -> int:
+    """``movies find ribbon L`` for a link: disjoint ribbon disks, one for each component."""
+    from movies.bounds.verdicts import mirror_s_values, s_values
+    from movies.checker.ribbon import RibbonSearch, find_ribbon_disk
+
+    n = link.component_count()
+    s, mirror_s = s_values(link), None
+    mirror_s = mirror_s_values(link, s)
+    links = [row[j] for i, row in enumerate(link.linking_matrix()) for j in range(i + 1, n)]
+    # disjoint disks in B^4: every linking number is 0, and Beliakova–Wehrli 2008 with chi = n gives
+    # s(L) <= 1 - n and s(m(L)) <= 1 - n
+    reasons = ([f"a linking number is {next(v for v in links if v)}, not 0"] if any(links) else []) + [
+        f"s of the {what} over {f} is {value} > {1 - n} = 1 - n (Beliakova–Wehrli)"
+        for what, values in (("link", s), ("mirror", mirror_s)) for f, value in values.items() if value > 1 - n]
+    found = RibbonSearch(args.spec, why="no disjoint disks: " + reasons[0]) if reasons else find_ribbon_disk(
+        args.spec, budget, progress=_say_progress())
+    data = {"link": args.spec, "components": n, "found": found.movie is not None, "verdict": found.verdict,
+            "bands": list(found.bands), "movie": found.movie, "why": found.why, "s": s, "mirror_s": mirror_s,
+            "linking_numbers": links, "slice_certified": found.verdict == "verified"}
+    if args.output and found.movie:
+        _write(args.output, found.movie)
+    if args.json:
+        print(json.dumps(data))
+    else:
+        lines = [args.spec, f"  {n} components; linking numbers {links}; s {s}; s of the mirror {mirror_s}"]
+        if found.movie:
+            lines += [f"  found ribbon disks, one for each component (" + ("; ".join(found.bands) or "no band")
+                      + f"), checked: {found.verdict}", "", found.movie.rstrip()]
+        else:
+            lines.append(f"  no ribbon disks found: {found.why}")
+        print("\n".join(lines))
+    if found.why.startswith("stopped by Ctrl-C"):
+        return EXIT_INTERRUPTED
+    return EXIT_OK if found.movie else EXIT_NOT_VERIFIED
+
+
 def _run_find(args: argparse.Namespace) -> int:
     """``movies find ribbon K``: a ribbon disk found by the band search, checked as a movie."""
     from movies.bounds.inequalities import best_genus_bound
@@ -488,7 +524,10 @@ def _run_find(args: argparse.Namespace) -> int:
     budget = _seconds(args.budget)
     knot = parse_diagram(args.spec)
     if knot.component_count() != 1:
-        raise InputError(f"movies find ribbon is for knots; {args.spec} has {knot.component_count()} components")
+        if args.what != "ribbon" or args.to is not None:
+            raise InputError(f"movies find surface is for knots; {args.spec} has {knot.component_count()} components "
+                             "(movies find ribbon takes links: one disk for each component)")
+        return _find_link_ribbon(args, knot, budget)
     import math
 
     from movies.checker.ribbon import RibbonSearch

@@ -33,5 +33,21 @@ def test_the_command_line_certifies_or_explains(tmp_path, capsys):
     assert table_row("4_1")["determinant"] == "5"
     assert main(["find", "ribbon", "4_1"]) == 1
     assert "not slice: Fox–Milnor (the determinant is not a square) gives g4 >= 1" in capsys.readouterr().out
-    assert main(["find", "ribbon", "L2a1{0}"]) == 2
-    assert "is for knots" in capsys.readouterr().err
+    assert main(["find", "surface", "L2a1{0}"]) == 2
+    assert "movies find surface is for knots" in capsys.readouterr().err
+
+
+def test_ribbon_disks_for_links(capsys):
+    # the square knot beside an unknot: one band for the square knot, then three disks (the movie is checked)
+    assert main(["find", "ribbon", "3_1 # mirror(3_1) + unknot", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert data["slice_certified"] and len(data["bands"]) == 1 and check_movie(data["movie"]).verified
+    # an unlink needs no band at all
+    assert main(["find", "ribbon", "unlink(2)", "--json"]) == 0
+    assert json.loads(capsys.readouterr().out)["bands"] == []
+    # LinkInfo's L5a1{0} (linking number 0): Beliakova–Wehrli 2008 with two disks needs s of the mirror <= -1
+    assert main(["find", "ribbon", "L5a1{0}"]) == 1
+    assert "s of the mirror over Q is 1 > -1" in capsys.readouterr().out
+    # the Hopf link: linking number 1 (LinkInfo linking_matrix), so no disjoint disks
+    assert main(["find", "ribbon", "L2a1{1}"]) == 1
+    assert "a linking number is 1, not 0" in capsys.readouterr().out
