@@ -24,7 +24,7 @@ from movies.checker import search
 from movies.checker.distinguish import first_difference
 from movies.checker.judge import Expectation, judge
 from movies.checker.result import REFUTED, CheckResult, Finding, StepRecord
-from movies.diagram.handles import HandleDiagram, capped, carried, fiber_of, keep_off
+from movies.diagram.handles import HandleDiagram, capped, carried, fiber_of, keep_off, slid
 from movies.diagram.model import Diagram
 from movies.diagram.steps import MoveRecord, Places, Transition, growth, identity_transition, perform, places_named
 from movies.errors import InputError, LocatedLimitError, MoveError
@@ -95,6 +95,9 @@ class _Replay:
         try:
             if self.movie.handles is not None:
                 self.admit(statement)
+            elif statement.kind in ("cap", "slide"):
+                raise MoveError(f"'{statement.kind}' is a step of a movie with handles; this one starts without any "
+                                "(write the first frame as 'DIAGRAM with handle across ...')")
             if statement.kind == "simplify":
                 self.result.places.append(Places())
                 new, transition, certified, note, found = self.simplify(statement)
@@ -142,8 +145,8 @@ class _Replay:
             if claimed is None or self.handles is None or len(claimed.gates) != len(self.handles.gates):
                 raise MoveError("in a movie with handles an isotopy claim names the handles too ('isotopic to DIAGRAM "
                                 f"with handle across ...'), as many as the frame has ({len(self.movie.handles.gates)})")
-        if self.handles is None and kind == "cap":
-            raise MoveError("no handle has a strand through it any more: there is no fiber to cap")
+        if self.handles is None and kind in ("cap", "slide"):
+            raise MoveError("no handle has a strand through it any more: there is no fiber to cap or gate to slide")
         if kind == "death":
             component = statement.record.component
             if component in self.frame.components:
@@ -162,6 +165,8 @@ class _Replay:
         """The handles after a step that kept off them (or after a fiber cap)."""
         if self.handles is None:
             return None
+        if record.kind == "slide":
+            return slid(self.handles, record.handle, record.crossing)
         if record.kind == "cap":
             handle, direction = fiber_of(self.handles, record.component)
             self.result.caps.append((self.number - 1, handle, direction))

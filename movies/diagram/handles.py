@@ -39,7 +39,7 @@ from movies.diagram.moves.twist import arcs_tangled, gate_arcs, gate_path
 from movies.errors import DiagramError, MoveError
 
 __all__ = ["Gate", "HandleDiagram", "handle_diagram", "regated", "fibers", "closed_braid", "twisted",
-           "gate_faces", "keep_off", "carried", "fiber_of", "capped"]
+           "gate_faces", "keep_off", "carried", "fiber_of", "capped", "slid"]
 
 #: how many orientations the search for null-homologous ones tries at most (2^components)
 MOST_ORIENTATIONS = 1 << 16
@@ -354,3 +354,69 @@ def capped(link: HandleDiagram, component: int, diagram: Diagram) -> HandleDiagr
     if not kept:
         return None
     return handle_diagram(diagram, [(edges, diagram.side_face[side]) for edges, _, side in kept])
+
+
+def slid(link: HandleDiagram, handle: int, crossing: int) -> HandleDiagram:
+    """The handles after sliding gate ``handle`` along its bundle past ``crossing``, where two of
+    its strands cross.
+
+    The gate must cross the two strands consecutively, on the edges that run into (or out of)
+    ``crossing``, through the face at that corner; it then crosses their continuations beyond
+    the crossing, in the other order. The gate sweeps only the corner of a face and the crossing
+    itself, where both strands pass through it: an isotopy of the handle's circle off the link,
+    so every twisted approximation stays the same up to isotopy. Raises
+    :class:`~movies.errors.MoveError` saying why the slide does not apply.
+
+    >>> from movies.language.spec import parse_handle_diagram
+    >>> after = slid(parse_handle_diagram("braid(2)[1, 1] with handle across 1 3 from face 1"), 1, 1)
+    >>> after.gates[0].edges, after.homology_class()
+    ((4, 2), (2,))
+    """
+    if not 1 <= handle <= len(link.gates):
+        raise MoveError(f"there is no handle {handle} (handles 1 to {len(link.gates)})")
+    diagram, gate = link.diagram, link.gates[handle - 1]
+    if crossing not in diagram.crossings:
+        raise MoveError(f"crossing {crossing} is not in the diagram (crossings: {sorted(diagram.crossings)})")
+    faces = gate_path(diagram, gate.edges, gate.start_face(diagram))[0]
+    at = set(diagram.crossing(crossing))
+    for j in range(len(gate.edges) - 1):
+        a, b = gate.edges[j], gate.edges[j + 1]
+        if a not in at or b not in at:
+            continue
+        ends = [diagram.edge_ends[e] for e in (a, b)]
+        heads = [end[1].crossing == crossing for end in ends]
+        tails = [end[0].crossing == crossing for end in ends]
+        if not (all(heads) or all(tails)):
+            continue
+        corner = faces[j + 1]
+        if crossing not in diagram.face_crossings(corner):
+            continue
+        beyond = [_through(diagram, crossing, e, forward=all(heads)) for e in (a, b)]
+        edges = gate.edges[:j] + (beyond[1], beyond[0]) + gate.edges[j + 2:]
+        starts = []
+        for number, other in enumerate(link.gates, start=1):
+            if number != handle:
+                starts.append((other.edges, other.start_face(diagram)))
+                continue
+            if j > 0:
+                starts.append((edges, faces[0]))
+            else:  # the first edge changes: the gate still starts in the face it started in, now beside it
+                starts.append((edges, faces[0] if faces[0] in diagram.faces_beside(edges[0]) else None))
+        try:
+            result = handle_diagram(diagram, starts)
+        except MoveError as err:
+            raise MoveError(f"handle {handle} cannot slide past crossing {crossing}: {err}") from None
+        if result.homology_class() != link.homology_class():  # pragma: no cover - the strands are the same ones
+            raise MoveError(f"handle {handle} slid past crossing {crossing} would change the class")
+        return result
+    raise MoveError(f"handle {handle} cannot slide past crossing {crossing}: its gate does not cross two strands "
+                    f"that run into (or out of) crossing {crossing} one after the other, through the corner there")
+
+
+def _through(diagram: Diagram, crossing: int, edge: int, forward: bool) -> int:
+    """The edge that continues ``edge``'s strand through ``crossing`` (forward: edge runs into it)."""
+    labels = diagram.crossing(crossing)
+    index = labels.index(edge) if labels.count(edge) == 1 else None
+    if index is None:  # pragma: no cover - a kink: both ends of the edge at this crossing
+        raise MoveError(f"edge {edge} runs into and out of crossing {crossing}: a kink, not a slide")
+    return labels[(index + 2) % 4]

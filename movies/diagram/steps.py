@@ -54,6 +54,7 @@ FIELDS = {
     "birth": ("face", "counterclockwise", "names"),
     "death": ("component",),
     "cap": ("component",),
+    "slide": ("handle", "crossing"),
     "twist": ("edges", "turns", "start_face", "names"),
 }
 #: every kind of move step
@@ -61,7 +62,7 @@ KINDS = tuple(FIELDS)
 #: fields a record may leave out
 _OPTIONAL = {"kink", "names", "start_face", "path", "twists"} | {"band:face", "birth:counterclockwise"}
 _ALL = ("edge", "hand", "sign", "crossing", "kink", "over", "under", "face", "first", "second",
-        "counterclockwise", "component", "edges", "turns", "start_face", "names", "path", "twists")
+        "counterclockwise", "component", "edges", "turns", "start_face", "names", "path", "twists", "handle")
 #: per kind, the fields it must have and the fields it must not
 _REQUIRED = {kind: tuple(name for name in fields if name not in _OPTIONAL and f"{kind}:{name}" not in _OPTIONAL)
              for kind, fields in FIELDS.items()}
@@ -81,7 +82,7 @@ class MoveRecord:
     >>> MoveRecord("R4", face=1)
     Traceback (most recent call last):
     ...
-    movies.errors.MoveError: a move is one of R1+, R1-, R2+, R2-, R3, band, birth, death, cap, twist, not 'R4'
+    movies.errors.MoveError: a move is one of R1+, R1-, R2+, R2-, R3, band, birth, death, cap, slide, twist, not 'R4'
     """
 
     kind: str
@@ -105,6 +106,8 @@ class MoveRecord:
     path: tuple[tuple[int, bool], ...] | None = None
     #: a band's half twists, right-handed for positive numbers
     twists: int | None = None
+    #: the handle a slide moves (1, 2, ...)
+    handle: int | None = None
 
     def __post_init__(self) -> None:
         kind = self.kind
@@ -162,6 +165,8 @@ class MoveRecord:
             text = f"death {self.component}"
         elif k == "cap":
             text = f"cap fiber {self.component}"
+        elif k == "slide":
+            text = f"slide handle {self.handle} past crossing {self.crossing}"
         else:
             text = (f"twist {self.turns:+d} across {' '.join(map(str, self.edges))}"
                     + (f" from face {self.start_face}" if self.start_face is not None else ""))
@@ -248,8 +253,14 @@ _CALL: dict[str, Callable[[Diagram, MoveRecord], object]] = {
     # a fiber cap removes a crossingless circle as a death does; that it is a fiber of a handle is
     # checked where the handles are known (the replay)
     "cap": lambda d, r: moves.death(d, r.component),
+    # sliding a handle moves its gate, not the link: the frame stays; the replay moves the gate
+    "slide": lambda d, r: d if r.crossing in d.crossings else _no_crossing(d, r.crossing),
     "twist": lambda d, r: moves.twist(d, r.edges, r.turns, r.start_face, **_chosen(r)),
 }
+
+
+def _no_crossing(diagram: Diagram, crossing: int):
+    raise MoveError(f"crossing {crossing} is not in the diagram (crossings: {sorted(diagram.crossings)})")
 
 
 def apply(record: MoveRecord, diagram: Diagram) -> Diagram:
@@ -304,6 +315,9 @@ def _outcome(record: MoveRecord, before: Diagram, result) -> Outcome:
     if kind == "death":
         return Outcome(result, Transition("death", ended=(record.component,), deaths=1),
                        Places(edges=tuple(before.components[record.component])), f"component {record.component} dies")
+    if kind == "slide":
+        return Outcome(result, identity_transition(kind, sorted(before.components)), Places(crossings=(record.crossing,)),
+                       f"handle {record.handle} slides past crossing {record.crossing}")
     if kind == "cap":
         return Outcome(result, Transition("cap", ended=(record.component,), deaths=1),
                        Places(edges=tuple(before.components[record.component])),

@@ -305,3 +305,23 @@ def test_movies_bounds_agrees_with_the_checker_on_the_examples(name, manifold):
     best = max(b.rhs for b in answers[manifold].bounds)
     allowed = 1 - result.surface.euler_characteristic >= best
     assert allowed == (result.verdict == "verified"), (name, best, result.surface.euler_characteristic)
+
+
+def test_sliding_a_gate_past_a_crossing_of_its_strands():
+    from movies.checker import search
+    from movies.invariants.jones import jones_polynomial
+
+    start = "start braid(2)[1, 1] with handle across 1 3 from face 1"
+    result = check_movie(f"{start}\nslide handle 1 past crossing 1\nslide handle 1 past crossing 2")
+    assert result.verified
+    assert [h.gates[0].edges for h in result.handle_frames] == [(1, 3), (4, 2), (1, 3)]
+    # the slide is an isotopy of the handle's circle off the link: every approximation stays the same knot type
+    before, after = result.handle_frames[0], result.handle_frames[1]
+    for k in (-1, 1, 2):
+        a, b = twisted(before, k), twisted(after, k)
+        assert jones_polynomial(a) == jones_polynomial(b)
+        assert search.certify(a, b, 5).certified, k
+    # a crossing the gate's strands do not both run into, through the corner the gate passes
+    assert "cannot slide past crossing 1" in _invalid("start 3_1 with handle across 1 5\nslide handle 1 past crossing 1")
+    assert "'slide' is a step of a movie with handles" in _invalid("start unknot\nslide handle 1 past crossing 1")
+    assert "'cap' is a step of a movie with handles" in _invalid("start unknot\ncap fiber 1")
