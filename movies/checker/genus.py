@@ -117,20 +117,24 @@ def crossing_change_bands(diagram: Diagram, crossing: int, budget: float = 1.0) 
     target = switched(diagram, crossing)
     target_jones = jones_polynomial(target)
     corner_edges = set(diagram.crossing(crossing))
+    pairs = []
     for first in band_candidates(diagram):
         if first.first not in corner_edges or first.second not in corner_edges or first.first == first.second:
             continue
         middle = _banded(first, diagram, diagram.component_count() + 1)
         if middle is None:
             continue
-        for second in band_candidates(middle):
-            if second.first == second.second:
-                continue
-            after = _banded(second, middle, diagram.component_count())
-            if after is None or jones_polynomial(after) != target_jones:
-                continue
-            if search.certify(after, target, budget).certified:
-                return first, second
+        pairs.append((first, middle))
+    for paths in (False, True):  # a join across a face first, then one along a path over or under an edge
+        for first, middle in pairs:
+            for second in band_candidates(middle, paths=paths):
+                if second.first == second.second:
+                    continue
+                after = _banded(second, middle, diagram.component_count())
+                if after is None or jones_polynomial(after) != target_jones:
+                    continue
+                if search.certify(after, target, budget).certified:
+                    return first, second
     return None
 
 
