@@ -14,17 +14,16 @@ import argparse
 import os
 import platform
 import random
-import statistics
 import sys
-import time
 from datetime import date
 from pathlib import Path
 
 from movies.checker.replay import check_movie
-from movies.diagram.handles import carried, handle_diagram, keep_off
-from movies.diagram.steps import MoveRecord, perform
-from movies.errors import MoveError
+from movies.diagram.handles import handle_diagram
 from movies.language.spec import parse_diagram
+
+sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
+from support.handles import median_time, random_steps  # noqa: E402  (the tests' random steps off the handles)
 
 ROOT = Path(__file__).resolve().parents[2]
 RESULTS = Path(__file__).resolve().parent / "results" / "handle_movies.md"
@@ -33,45 +32,9 @@ START = "L4a1{1}"  # both components through both handles, each once each way: a
 
 def thirty_step_movie(seed: int = 30) -> str:
     """A movie of 30 steps off the gates of a two-component link with two handles."""
-    diagram = parse_diagram(START)
-    link = handle_diagram(diagram, [([2, 6], None), ([4, 8], None)])
-    rng = random.Random(seed)
-    lines = [f"start {START} with handle across 2 6 and handle across 4 8"]
-    while len(lines) < 31:
-        d = link.diagram
-        kind = rng.choice(["R1+", "R1+", "birth", "band", "R2+"])
-        try:
-            if kind == "R1+":
-                record = MoveRecord("R1+", edge=rng.choice(sorted(d.edges())), hand=rng.choice("LR"),
-                                    sign=rng.choice((1, -1)))
-            elif kind == "birth":
-                record = MoveRecord("birth", face=rng.choice(sorted(d.faces)))
-            else:
-                face = rng.choice(sorted(d.faces))
-                around = sorted({side.edge for cycle in d.faces[face] for side in cycle})
-                if len(around) < 2:
-                    continue
-                a, b = rng.sample(around, 2)
-                record = (MoveRecord("band", first=a, second=b, face=face) if kind == "band"
-                          else MoveRecord("R2+", over=a, under=b, face=face))
-            outcome = perform(record, d)
-            if outcome.diagram.crossing_count() > 20:  # keep the frames small: the check is the subject
-                continue
-            keep_off(link, outcome.places.edges, outcome.places.crossings, "a step")
-            link = carried(link, outcome.diagram, [a for _, a, same in outcome.transition.links if not same])
-        except MoveError:
-            continue
-        lines.append(str(record))
-    return "\n".join(lines)
-
-
-def median_time(work, rounds: int) -> tuple[float, object]:
-    times, value = [], None
-    for _ in range(rounds):
-        started = time.perf_counter()
-        value = work()
-        times.append(time.perf_counter() - started)
-    return statistics.median(times), value
+    link = handle_diagram(parse_diagram(START), [([2, 6], None), ([4, 8], None)])
+    records, _ = random_steps(link, random.Random(seed), 30, most_crossings=20, tries=200)
+    return "\n".join([f"start {START} with handle across 2 6 and handle across 4 8"] + [str(r) for r in records])
 
 
 def main() -> int:

@@ -13,9 +13,7 @@ from __future__ import annotations
 import argparse
 import os
 import platform
-import statistics
 import sys
-import time
 from datetime import date
 from pathlib import Path
 
@@ -24,17 +22,11 @@ from movies.homology.approximations import s_of_handles
 from movies.homology.links import link_s_values
 from movies.language.spec import parse_handle_diagram
 
+sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
+from support.handles import median_time  # noqa: E402
+
 ROOT = Path(__file__).resolve().parents[2]
 RESULTS = Path(__file__).resolve().parent / "results" / "handles.md"
-
-
-def median_time(work, rounds: int) -> tuple[float, object]:
-    times, value = [], None
-    for _ in range(rounds):
-        started = time.perf_counter()
-        value = work()
-        times.append(time.perf_counter() - started)
-    return statistics.median(times), value
 
 
 def main() -> int:

@@ -6,14 +6,14 @@ import random
 import pytest
 
 from movies.checker.replay import check_movie
-from movies.diagram.handles import carried, handle_diagram, keep_off, twisted
+from movies.diagram.handles import twisted
 from movies.diagram.isotopy import same_on_sphere
 from movies.diagram.steps import MoveRecord, perform
 from movies.diagram.tables import table_names
-from movies.errors import MoveError
 from movies.language.movie import parse_movie
 from movies.language.spec import parse_diagram
 from movies.report.movie import as_json
+from support.handles import random_link_with_a_handle, random_steps
 
 TREFOIL = "3_1 with handle across 1 5"
 
@@ -89,61 +89,6 @@ def test_where_a_movie_with_handles_lives():
     assert (place.name, place.also) == ("\u266e^2 S^1 x B^3", ("\u266e^2 B^2 x S^2",))
 
 
-def _balanced_gates(diagram, rng, tries=60):
-    """Gates across two edges of a face that run opposite ways (null-homologous handles), or None."""
-    from movies.diagram.moves.twist import gate_path
-
-    faces = sorted(diagram.faces)
-    for _ in range(tries):
-        face = rng.choice(faces)
-        edges = sorted({side.edge for cycle in diagram.faces[face] for side in cycle})
-        if len(edges) < 2:
-            continue
-        first, second = rng.sample(edges, 2)
-        start = [f for f in diagram.faces_beside(first) if f != face]
-        if not start:
-            continue
-        try:
-            _, directions = gate_path(diagram, [first, second], start[0])
-        except MoveError:
-            continue
-        if sum(directions) == 0:
-            return handle_diagram(diagram, [([first, second], start[0])])
-    return None
-
-
-def _random_steps(link, rng, count):
-    """Moves that keep off the gates, found by trying random ones; the records and the handles after each."""
-    records, frames = [], [link]
-    for _ in range(count * 20):
-        if len(records) == count:
-            break
-        d = frames[-1].diagram
-        kind = rng.choice(["R1+", "birth", "band", "R2+"])
-        edges = sorted(d.edges())
-        try:
-            if kind == "R1+":
-                record = MoveRecord("R1+", edge=rng.choice(edges), hand=rng.choice("LR"), sign=rng.choice((1, -1)))
-            elif kind == "birth":
-                record = MoveRecord("birth", face=rng.choice(sorted(d.faces)))
-            else:
-                face = rng.choice(sorted(d.faces))
-                around = sorted({side.edge for cycle in d.faces[face] for side in cycle})
-                if len(around) < 2:
-                    continue
-                a, b = rng.sample(around, 2)
-                record = (MoveRecord("band", first=a, second=b, face=face) if kind == "band"
-                          else MoveRecord("R2+", over=a, under=b, face=face))
-            outcome = perform(record, d)
-            keep_off(frames[-1], outcome.places.edges, outcome.places.crossings, "a random move")
-            after = carried(frames[-1], outcome.diagram, [a for _, a, same in outcome.transition.links if not same])
-        except MoveError:
-            continue
-        records.append(record)
-        frames.append(after)
-    return records, frames
-
-
 def test_twisting_commutes_with_every_step_that_keeps_off_the_handles():
     # the design notes (section 2), tested rather than assumed: a step that keeps off the gates is, for every k,
     # the same step between the twisted approximations
@@ -151,10 +96,10 @@ def test_twisting_commutes_with_every_step_that_keeps_off_the_handles():
     names = table_names("knot", max_crossings=7)[1:]
     checked = 0
     for name in rng.sample(names, 8):
-        link = _balanced_gates(parse_diagram(name), rng)
+        link = random_link_with_a_handle(parse_diagram(name), rng)
         if link is None:
             continue
-        records, frames = _random_steps(link, rng, 4)
+        records, frames = random_steps(link, rng, 4)
         for record, before, after in zip(records, frames, frames[1:]):
             for k in (-1, 1, 2):
                 moved = perform(record, twisted(before, k)).diagram
@@ -169,10 +114,10 @@ def test_random_verified_handle_movies_never_break_an_inequality():
     names = table_names("knot", max_crossings=6)[1:]
     verified = 0
     for name in rng.sample(names, 6):
-        link = _balanced_gates(parse_diagram(name), rng)
+        link = random_link_with_a_handle(parse_diagram(name), rng)
         if link is None:
             continue
-        records, _ = _random_steps(link, rng, 3)
+        records, _ = random_steps(link, rng, 3)
         gate = " ".join(map(str, link.gates[0].edges))
         text = "\n".join([f"start {name} with handle across {gate} from face {link.gates[0].start_face(link.diagram)}"]
                          + [str(r) for r in records])

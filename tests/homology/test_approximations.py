@@ -11,6 +11,7 @@ from movies.homology.links import link_s_values
 from movies.invariants.jones import jones_polynomial
 from movies.diagram.constructors import mirror
 from movies.language.spec import parse_diagram, parse_handle_diagram
+from support.handles import balanced_gate
 from support.knotinfo_columns import parse_laurent
 
 
@@ -83,32 +84,6 @@ def test_the_limits_are_ordered(knots_by_jones):
         assert found.plus.low <= found.plus.high <= found.minus.low <= found.minus.high
 
 
-def _balanced_gate(diagram, rng):
-    """A gate across two edges of one face running opposite ways through it (a = 0), or None."""
-    from movies.diagram.moves.twist import gate_path
-    from movies.errors import MoveError
-
-    faces = sorted(diagram.faces)
-    rng.shuffle(faces)
-    for face in faces:
-        edges = sorted({side.edge for cycle in diagram.faces[face] for side in cycle})
-        rng.shuffle(edges)
-        for first in edges:
-            for second in edges:
-                if first == second:
-                    continue
-                start = [f for f in diagram.faces_beside(first) if f != face]
-                if not start:
-                    continue
-                try:
-                    _, directions = gate_path(diagram, [first, second], start[0])
-                except MoveError:
-                    continue
-                if sum(directions) == 0:
-                    return [first, second], start[0]
-    return None
-
-
 def test_random_null_homologous_links_in_s1xs2():
     import random
 
@@ -120,7 +95,7 @@ def test_random_null_homologous_links_in_s1xs2():
     checked = 0
     for name in rng.sample(names, 10):
         diagram = parse_diagram(name)
-        gate = _balanced_gate(diagram, rng)
+        gate = balanced_gate(diagram, rng)
         if gate is None:
             continue
         link = handle_diagram(diagram, [gate])

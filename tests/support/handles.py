@@ -1,0 +1,86 @@
+"""Random links with handles and random steps that keep off them, for the tests and the benchmarks."""
+
+from __future__ import annotations
+
+import statistics
+import time
+
+from movies.diagram.handles import carried, handle_diagram, keep_off
+from movies.diagram.moves.twist import gate_path
+from movies.diagram.steps import MoveRecord, perform
+from movies.errors import MoveError
+
+
+def balanced_gate(diagram, rng):
+    """A gate across two edges of one face running opposite ways through it (a = 0), as
+    ``(edges, start face)``, or None."""
+    faces = sorted(diagram.faces)
+    rng.shuffle(faces)
+    for face in faces:
+        edges = sorted({side.edge for cycle in diagram.faces[face] for side in cycle})
+        rng.shuffle(edges)
+        for first in edges:
+            for second in edges:
+                if first == second:
+                    continue
+                start = [f for f in diagram.faces_beside(first) if f != face]
+                if not start:
+                    continue
+                try:
+                    _, directions = gate_path(diagram, [first, second], start[0])
+                except MoveError:
+                    continue
+                if sum(directions) == 0:
+                    return [first, second], start[0]
+    return None
+
+
+def random_steps(link, rng, count, most_crossings=None, tries=20):
+    """Up to ``count`` random steps (kinks, births, bands, fingers) that keep off the handles of
+    ``link``, found by trying; the records and the handles after each (the first is ``link``)."""
+    records, frames = [], [link]
+    for _ in range(count * tries):
+        if len(records) == count:
+            break
+        d = frames[-1].diagram
+        kind = rng.choice(["R1+", "birth", "band", "R2+"])
+        try:
+            if kind == "R1+":
+                record = MoveRecord("R1+", edge=rng.choice(sorted(d.edges())), hand=rng.choice("LR"),
+                                    sign=rng.choice((1, -1)))
+            elif kind == "birth":
+                record = MoveRecord("birth", face=rng.choice(sorted(d.faces)))
+            else:
+                face = rng.choice(sorted(d.faces))
+                around = sorted({side.edge for cycle in d.faces[face] for side in cycle})
+                if len(around) < 2:
+                    continue
+                a, b = rng.sample(around, 2)
+                record = (MoveRecord("band", first=a, second=b, face=face) if kind == "band"
+                          else MoveRecord("R2+", over=a, under=b, face=face))
+            outcome = perform(record, d)
+            if most_crossings is not None and outcome.diagram.crossing_count() > most_crossings:
+                continue
+            keep_off(frames[-1], outcome.places.edges, outcome.places.crossings, "a random step")
+            after = carried(frames[-1], outcome.diagram, [a for _, a, same in outcome.transition.links if not same])
+        except MoveError:
+            continue
+        records.append(record)
+        frames.append(after)
+    return records, frames
+
+
+def random_link_with_a_handle(diagram, rng):
+    """``diagram`` with one balanced handle, or None when no face gives one."""
+    gate = balanced_gate(diagram, rng)
+    return None if gate is None else handle_diagram(diagram, [gate])
+
+
+def median_time(work, rounds: int):
+    """The median of ``rounds`` timings of ``work()``, and its last value."""
+    times, value = [], None
+    for _ in range(rounds):
+        started = time.perf_counter()
+        value = work()
+        times.append(time.perf_counter() - started)
+    return statistics.median(times), value
