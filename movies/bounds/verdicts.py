@@ -95,6 +95,47 @@ def knot_genus_bounds(diagram: Diagram) -> list[GenusBound]:
     return four_genus_bounds(s, signature(diagram), lt)
 
 
+def search_genus_bounds(knot: Diagram, other: Diagram | None = None) -> list[GenusBound]:
+    """Lower bounds for the genus of a connected surface from ``knot`` to nothing (the 4-ball
+    genus) or, given ``other``, of a cobordism between the two knots; the Fox–Milnor test last.
+
+    Without ``other``: :func:`knot_genus_bounds`. With it: half the difference of s over each
+    field and of the signatures. Fox–Milnor: a slice knot's Alexander polynomial is f(t)f(1/t), so
+    its determinant is a square; a genus-0 cobordism makes K # m(K') slice, so the product of the
+    two determinants must be a square. The Fox–Milnor entry has ``value`` the determinant (or the
+    product) and bound 1 when that is not a square, else 0.
+
+    >>> from movies.language.spec import parse_diagram
+    >>> [(b.invariant, b.bound) for b in search_genus_bounds(parse_diagram("4_1"))][-1]
+    ('Fox–Milnor (the determinant is not a square)', 1)
+    >>> max(b.bound for b in search_genus_bounds(parse_diagram("7_1"), parse_diagram("5_1")))
+    1
+
+    References
+    ----------
+    J. Rasmussen (2010); K. Murasugi (1965); R. Fox, J. Milnor (1966).
+    """
+    import math
+
+    from movies.invariants.alexander import determinant
+
+    if other is None:
+        bounds = knot_genus_bounds(knot)
+        det = abs(determinant(knot))
+    else:
+        one, two = s_values(knot), s_values(other)
+        bounds = [GenusBound(f"s over {f}", abs(one[f] - two[f]), abs(one[f] - two[f]) // 2,
+                             "Rasmussen 2010: |s(K) - s(K')| <= 2g for a cobordism of genus g") for f in one]
+        difference = abs(signature(knot) - signature(other))
+        bounds.append(GenusBound("signature", difference, difference // 2,
+                                 "Murasugi 1965: |sigma(K) - sigma(K')| <= 2g for a cobordism of genus g"))
+        det = abs(determinant(knot)) * abs(determinant(other))
+    square = math.isqrt(det) ** 2 == det
+    bounds.append(GenusBound("Fox–Milnor (the determinant is not a square)" if not square else "Fox–Milnor",
+                             det, 0 if square else 1, "Fox–Milnor 1966: the determinant of a slice knot is a square"))
+    return bounds
+
+
 def surface_ambient(start: Diagram, end: Diagram, surface: Surface | None) -> Ambient:
     """The 4-manifold a movie's surface lives in, named for its boundary (:mod:`movies.bounds.ambient`).
 

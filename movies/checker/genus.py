@@ -19,11 +19,11 @@ the bands become a movie that :func:`movies.checker.replay.check_movie` must ver
 from __future__ import annotations
 
 import time
-from dataclasses import dataclass, field
 
+from movies.bounds.verdicts import search_genus_bounds
 from movies.checker import search
 from movies.checker.replay import check_movie
-from movies.checker.ribbon import band_candidates
+from movies.checker.ribbon import SearchResult, band_candidates
 from movies.diagram.model import Diagram
 from movies.diagram.steps import MoveRecord, perform
 from movies.errors import MoveError, MoviesError
@@ -32,21 +32,7 @@ from movies.invariants.jones import jones_polynomial
 from movies.invariants.signature import signature
 from movies.language.spec import parse_diagram
 
-__all__ = ["SurfaceSearch", "find_surface"]
-
-
-@dataclass
-class SurfaceSearch:
-    """What the search found: a verified movie of some genus, or why it stopped."""
-
-    knot: str
-    genus: int | None = None
-    movie: str | None = None
-    verdict: str | None = None
-    bands: tuple[str, ...] = ()
-    tried: int = 0
-    seconds: float = 0.0
-    why: str = ""
+__all__ = ["find_surface", "crossing_change_bands", "switched"]
 
 
 def _banded(record: MoveRecord, diagram: Diagram, components: int):
@@ -139,7 +125,7 @@ def crossing_change_bands(diagram: Diagram, crossing: int, budget: float = 1.0) 
 
 
 def find_surface(knot: str, budget: float = 60.0, most_genus: int | None = None, beam: int = 3,
-                 search_budget: float = 2.0, to: str | None = None, progress=None) -> SurfaceSearch:
+                 search_budget: float = 2.0, to: str | None = None, progress=None) -> SearchResult:
     """Look for a connected surface of small genus from ``knot`` to the empty diagram (or to the
     knot ``to``: a cobordism, ending with an isotopy claim the checker certifies).
 
@@ -162,19 +148,19 @@ def find_surface(knot: str, budget: float = 60.0, most_genus: int | None = None,
 
     Returns
     -------
-    SurfaceSearch
+    SearchResult
         The smallest genus found at the first level that reaches the unknot, with its movie and
         the checker's verdict; or why it stopped (Ctrl-C ends the search and is reported here).
     """
     try:
         return _find_surface(knot, budget, most_genus, beam, search_budget, to, progress)
     except KeyboardInterrupt:
-        return SurfaceSearch(knot, why="stopped by Ctrl-C before a surface was found")
+        return SearchResult(knot, why="stopped by Ctrl-C before a surface was found")
 
 
-def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -> SurfaceSearch:
+def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -> SearchResult:
     started = time.perf_counter()
-    report = SurfaceSearch(knot)
+    report = SearchResult(knot)
     start = parse_diagram(knot)
     if start.component_count() != 1:
         report.why = "the surface search is for knots"
@@ -199,7 +185,7 @@ def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -
             return search.simplify_frame(after, {"target": "crossingless"}, search_budget).reached
         return search.certify(after, target, search_budget).certified
 
-    least = _lower_bound(start, target)
+    least = max(b.bound for b in search_genus_bounds(start, None if to is None else target))
     if most_genus is None:
         most_genus = max(3, least + 1)
     for genus in range(1, most_genus + 1):
@@ -239,19 +225,6 @@ def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -
     return report
 
 
-def _lower_bound(start: Diagram, target: Diagram) -> int:
-    """No connected surface between the two knots has smaller genus: half the difference of s
-    over Q and of the signatures (Rasmussen 2010, Murasugi 1965), and 1 when the determinants'
-    product is not a square (Fox–Milnor 1966: K # m(K') is then not slice)."""
-    import math
-
-    from movies.bounds.verdicts import s_values
-
-    bound = max(abs(s_values(start)["Q"] - s_values(target)["Q"]), abs(signature(start) - signature(target))) // 2
-    product = abs(determinant(start)) * abs(determinant(target))
-    return max(bound, 0 if math.isqrt(product) ** 2 == product else 1)
-
-
 def _single_changes(frame: Diagram):
     """(split band, join band, knot left) for each crossing that its pair of bands changes."""
     for crossing in sorted(frame.crossings):
@@ -281,7 +254,7 @@ def _crossing_changes(start: Diagram, count: int, started: float, budget: float)
             return
 
 
-def _write(report: SurfaceSearch, knot: str, chain: tuple[MoveRecord, ...], genus: int, budget: float,
+def _write(report: SearchResult, knot: str, chain: tuple[MoveRecord, ...], genus: int, budget: float,
            to: str | None = None) -> bool:
     what = f"a surface of genus {genus} for {knot}" if to is None else f"a cobordism of genus {genus} from {knot} to {to}"
     lines = [f"title {what}, found by the band search", f"start {knot}"]

@@ -33,14 +33,16 @@ from movies.errors import MoveError
 from movies.invariants.jones import jones_polynomial
 from movies.language.spec import parse_diagram
 
-__all__ = ["RibbonSearch", "find_ribbon_disk", "band_candidates"]
+__all__ = ["SearchResult", "find_ribbon_disk", "band_candidates"]
 
 
 @dataclass
-class RibbonSearch:
-    """What the search found: the movie (verified by the checker) or why it stopped."""
+class SearchResult:
+    """What a surface search found: the movie (verified by the checker) and the genus of its
+    surface, or why it stopped."""
 
     knot: str
+    genus: int | None = None
     movie: str | None = None
     verdict: str | None = None
     bands: tuple[str, ...] = ()
@@ -105,7 +107,7 @@ def _unlink_by_invariants(diagram: Diagram) -> bool:
     return jones_polynomial(diagram) == jones_polynomial(unlink(n))
 
 
-def find_ribbon_disk(knot: str, budget: float = 60.0, search_budget: float = 2.0, progress=None) -> RibbonSearch:
+def find_ribbon_disk(knot: str, budget: float = 60.0, search_budget: float = 2.0, progress=None) -> SearchResult:
     """Look for a ribbon disk of ``knot`` (a diagram in the notation), and check it as a movie; for
     a link, one ribbon disk for each component, disjoint.
 
@@ -122,20 +124,20 @@ def find_ribbon_disk(knot: str, budget: float = 60.0, search_budget: float = 2.0
 
     Returns
     -------
-    RibbonSearch
+    SearchResult
         ``movie`` and ``verdict`` (``verified``) when found; otherwise ``why`` it stopped (the
         budget, the candidates exhausted, or Ctrl-C, which ends the search and is reported here).
     """
     try:
         return _find_ribbon_disk(knot, budget, search_budget, progress)
     except KeyboardInterrupt:
-        return RibbonSearch(knot, why="stopped by Ctrl-C before a ribbon disk was found")
+        return SearchResult(knot, why="stopped by Ctrl-C before a ribbon disk was found")
 
 
-def _find_ribbon_disk(knot: str, budget: float, search_budget: float, progress) -> RibbonSearch:
+def _find_ribbon_disk(knot: str, budget: float, search_budget: float, progress) -> SearchResult:
     started = time.perf_counter()
     start = parse_diagram(knot)
-    report = RibbonSearch(knot)
+    report = SearchResult(knot)
     pieces = start.component_count()  # a link gets one disk for each component
 
     said = [started]
@@ -166,6 +168,7 @@ def _find_ribbon_disk(knot: str, budget: float, search_budget: float, progress) 
             report.notes.append(f"a candidate the checker did not verify ({checked.verdict}): {', '.join(lines[2:-1])}")
             return False
         report.movie, report.verdict, report.bands = text, checked.verdict, tuple(str(r) for r in records)
+        report.genus = 0
         return True
 
     if finish([], start):  # already an unlink: the disks need no band

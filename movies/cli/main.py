@@ -480,10 +480,10 @@ def _say_progress():
 def _find_link_ribbon(args: argparse.Namespace, link, budget: float) -> int:
     """``movies find ribbon L`` for a link: disjoint ribbon disks, one for each component."""
     from movies.bounds.verdicts import mirror_s_values, s_values
-    from movies.checker.ribbon import RibbonSearch, find_ribbon_disk
+    from movies.checker.ribbon import SearchResult, find_ribbon_disk
 
     n = link.component_count()
-    s, mirror_s = s_values(link), None
+    s = s_values(link)
     mirror_s = mirror_s_values(link, s)
     links = [row[j] for i, row in enumerate(link.linking_matrix()) for j in range(i + 1, n)]
     # disjoint disks in B^4: every linking number is 0, and Beliakova–Wehrli 2008 with chi = n gives
@@ -491,7 +491,7 @@ def _find_link_ribbon(args: argparse.Namespace, link, budget: float) -> int:
     reasons = ([f"a linking number is {next(v for v in links if v)}, not 0"] if any(links) else []) + [
         f"s of the {what} over {f} is {value} > {1 - n} = 1 - n (Beliakova–Wehrli)"
         for what, values in (("link", s), ("mirror", mirror_s)) for f, value in values.items() if value > 1 - n]
-    found = RibbonSearch(args.spec, why="no disjoint disks: " + reasons[0]) if reasons else find_ribbon_disk(
+    found = SearchResult(args.spec, why="no disjoint disks: " + reasons[0]) if reasons else find_ribbon_disk(
         args.spec, budget, progress=_say_progress())
     data = {"link": args.spec, "components": n, "found": found.movie is not None, "verdict": found.verdict,
             "bands": list(found.bands), "movie": found.movie, "why": found.why, "s": s, "mirror_s": mirror_s,
@@ -503,126 +503,86 @@ def _find_link_ribbon(args: argparse.Namespace, link, budget: float) -> int:
     else:
         lines = [args.spec, f"  {n} components; linking numbers {links}; s {s}; s of the mirror {mirror_s}"]
         if found.movie:
-            lines += [f"  found ribbon disks, one for each component (" + ("; ".join(found.bands) or "no band")
+            lines += ["  found ribbon disks, one for each component (" + ("; ".join(found.bands) or "no band")
                       + f"), checked: {found.verdict}", "", found.movie.rstrip()]
         else:
             lines.append(f"  no ribbon disks found: {found.why}")
         print("\n".join(lines))
-    if found.why.startswith("stopped by Ctrl-C"):
-        return EXIT_INTERRUPTED
-    return EXIT_OK if found.movie else EXIT_NOT_VERIFIED
+    return _found_exit(found)
 
 
 def _run_find(args: argparse.Namespace) -> int:
-    """``movies find ribbon K``: a ribbon disk found by the band search, checked as a movie."""
+    """``movies find ribbon K`` and ``movies find surface K [--to K2]``: a surface found by a
+    search, checked as a movie, beside the lower bounds the invariants give."""
     from movies.bounds.inequalities import best_genus_bound
-    from movies.bounds.verdicts import knot_genus_bounds
-    from movies.checker.ribbon import find_ribbon_disk
-    from movies.invariants.alexander import determinant
+    from movies.bounds.verdicts import search_genus_bounds
+    from movies.checker.ribbon import SearchResult, find_ribbon_disk
     from movies.language.spec import parse_diagram
 
     budget = _seconds(args.budget)
     knot = parse_diagram(args.spec)
+    if args.to is not None and args.what != "surface":
+        raise InputError("--to is for 'movies find surface' (a cobordism between two knots)")
     if knot.component_count() != 1:
-        if args.what != "ribbon" or args.to is not None:
+        if args.what != "ribbon":
             raise InputError(f"movies find surface is for knots; {args.spec} has {knot.component_count()} components "
                              "(movies find ribbon takes links: one disk for each component)")
         return _find_link_ribbon(args, knot, budget)
-    import math
-
-    from movies.checker.ribbon import RibbonSearch
-
-    bounds = knot_genus_bounds(knot)
+    other = None if args.to is None else parse_diagram(args.to)
+    if other is not None and other.component_count() != 1:
+        raise InputError(f"--to takes a knot; {args.to} has {other.component_count()} components")
+    bounds = search_genus_bounds(knot, other)
     best = best_genus_bound(bounds)
-    det = abs(determinant(knot))
-    square = math.isqrt(det) ** 2 == det
-    if not square and best.bound == 0:
-        from movies.bounds.inequalities import GenusBound
-
-        # Fox–Milnor (1966): a slice knot's Alexander polynomial is f(t) f(1/t), so its determinant is a square
-        best = GenusBound("Fox–Milnor (the determinant is not a square)", det, 1, "Fox–Milnor 1966")
-    if args.to is not None and args.what != "surface":
-        raise InputError("--to is for 'movies find surface' (a cobordism between two knots)")
-    if args.what == "surface" and args.to is not None:
-        from movies.bounds.verdicts import s_values
-        from movies.invariants.signature import signature
-
-        other = parse_diagram(args.to)
-        if other.component_count() != 1:
-            raise InputError(f"--to takes a knot; {args.to} has {other.component_count()} components")
-        one, two = s_values(knot), s_values(other)
-        # Rasmussen 2010 (and over F2 likewise): |s(K) - s(K')| <= 2 g of a cobordism; Murasugi for signatures
-        candidates = [(abs(one[f] - two[f]), f"s over {f}") for f in one]
-        candidates.append((abs(signature(knot) - signature(other)), "signature"))
-        from movies.bounds.inequalities import GenusBound
-
-        bounds = [GenusBound(name, value, value // 2, "") for value, name in candidates]
-        best = max(bounds, key=lambda b: b.bound)
     if args.what == "surface":
         from movies.checker.genus import find_surface
 
         found = find_surface(args.spec, budget, to=args.to, progress=_say_progress())
-        genus = found.genus
-    elif best.bound > 0 or not square:  # not slice: no disk to look for
-        why = (f"the knot is not slice: {best.invariant} gives g4 >= {best.bound}" if best.bound > 0 else
-               f"the knot is not slice: its determinant {det} is not a square (Fox–Milnor)")
-        found, genus = RibbonSearch(args.spec, why=why), None
+    elif best.bound > 0:  # not slice: no disk to look for
+        found = SearchResult(args.spec, why=f"the knot is not slice: {best.invariant} gives g4 >= {best.bound}")
     else:
         found = find_ribbon_disk(args.spec, budget, progress=_say_progress())
-        genus = 0 if found.movie else None
-    cobordism = args.to is not None
-    certified = genus if found.verdict == "verified" and genus == best.bound else None
+    genus = found.genus if found.verdict == "verified" else None
+    cobordism = other is not None
+    certified = genus if genus is not None and genus == best.bound else None
     data = {"knot": args.spec, "to": args.to, "found": found.movie is not None, "verdict": found.verdict,
             "bands": list(found.bands), "movie": found.movie, "candidates": found.tried, "why": found.why,
             ("genus_bounds" if cobordism else "four_genus_bounds"):
                 [{"invariant": b.invariant, "value": b.value, "bound": b.bound} for b in bounds],
-            "genus": genus if found.verdict == "verified" else None, "best_lower_bound": best.bound,
-            **({"genus_certified": certified} if cobordism else
-               {"determinant": det, "fox_milnor": square, "four_genus_certified": certified})}
+            "genus": genus, "best_lower_bound": best.bound,
+            ("genus_certified" if cobordism else "four_genus_certified"): certified}
     if args.output and found.movie:
         _write(args.output, found.movie)
     if args.json:
         print(json.dumps(data))
-        return EXIT_OK if found.movie else EXIT_NOT_VERIFIED
-    quantity = "the genus of a cobordism to " + args.to if cobordism else "g4"
+        return _found_exit(found)
     lines = [args.spec if not cobordism else f"{args.spec} to {args.to}"]
-    if cobordism:
-        lines += [f"  difference of {b.invariant:<18} {b.value:>4}   genus >= {b.bound}" for b in bounds]
-    else:
-        lines += [f"  {b.invariant:<28} {b.value:>4}   g4 >= {b.bound}" for b in bounds]
-        lines.append(f"  determinant {det}: " + ("a square, as Fox–Milnor requires of a slice knot" if square else
-                                                  "not a square, so by Fox–Milnor the knot is not slice"))
+    quantity = "genus" if cobordism else "g4"
+    for b in bounds:
+        if b.invariant.startswith("Fox–Milnor"):
+            what = "the product of the determinants" if cobordism else "the determinant"
+            lines.append(f"  {what} {b.value}: " + ("a square" if b.bound == 0 else
+                                                    f"not a square, so by Fox–Milnor {quantity} >= 1"))
+        else:
+            lines.append(f"  {('difference of ' if cobordism else '') + b.invariant:<28} {b.value:>4}   "
+                         f"{quantity} >= {b.bound}")
     what = "a ribbon disk" if args.what == "ribbon" else "a cobordism" if cobordism else "a surface"
     if found.movie:
-        lines.append(f"  found {what} of genus {genus} (" + ("; ".join(found.bands) or "an isotopy")
+        lines.append(f"  found {what} of genus {genus} (" + ("; ".join(found.bands) or "no band")
                      + f"), checked: {found.verdict}")
         if certified is not None:
             lines.append(f"  {'cobordism genus' if cobordism else '4-genus'} certified: {genus} (the surface found; "
-                         f"{best.invariant} gives {'genus' if cobordism else 'g4'} >= {best.bound})")
+                         f"{best.invariant} gives {quantity} >= {best.bound})")
         else:
             lines.append(f"  {quantity} is between {best.bound} ({best.invariant}) and {genus} (the surface found)")
         lines += ["", found.movie.rstrip()]
     else:
         lines.append(f"  no {what[2:]} found: {found.why}")
     print("\n".join(lines))
-    if found.why.startswith("stopped by Ctrl-C"):
-        return EXIT_INTERRUPTED
-    return EXIT_OK if found.movie else EXIT_NOT_VERIFIED
-    lines = [args.spec]
-    lines += [f"  {b.invariant:<28} {b.value:>4}   g4 >= {b.bound}" for b in bounds]
-    lines.append(f"  determinant {det}: " + ("a square, as Fox–Milnor requires of a slice knot" if square else
-                                              "not a square, so by Fox–Milnor the knot is not slice"))
-    what = "a ribbon disk" if args.what == "ribbon" else "a surface"
-    if found.movie:
-        lines.append(f"  found {what} of genus {genus} (" + "; ".join(found.bands) + f"), checked: {found.verdict}")
-        if genus == best.bound:
-            lines.append(f"  4-genus certified: {genus} (the surface found; {best.invariant} gives g4 >= {best.bound})")
-        else:
-            lines.append(f"  4-genus between {best.bound} ({best.invariant}) and {genus} (the surface found)")
-        lines += ["", found.movie.rstrip()]
-    else:
-        lines.append(f"  no {what[2:]} found: {found.why}")
-    print("\n".join(lines))
+    return _found_exit(found)
+
+
+def _found_exit(found) -> int:
+    """0 when the search found a surface the checker verified; 130 after Ctrl-C; 1 otherwise."""
     if found.why.startswith("stopped by Ctrl-C"):
         return EXIT_INTERRUPTED
     return EXIT_OK if found.movie else EXIT_NOT_VERIFIED

@@ -25,7 +25,10 @@ def test_the_command_line_certifies_or_explains(tmp_path, capsys):
     out = tmp_path / "r.movie"
     assert main(["find", "ribbon", "6_1", "-o", str(out), "--json"]) == 0
     data = json.loads(capsys.readouterr().out)
-    assert data["four_genus_certified"] == 0 and data["fox_milnor"] and check_movie(out.read_text()).verified
+    assert data["four_genus_certified"] == 0 and check_movie(out.read_text()).verified
+    # KnotInfo determinant of 6_1 is 9, a square: Fox–Milnor allows a disk
+    assert table_row("6_1")["determinant"] == "9"
+    assert data["four_genus_bounds"][-1] == {"invariant": "Fox–Milnor", "value": 9, "bound": 0}
     # KnotInfo rasmussen_invariant of 3_1 is 2: not slice, nothing to search for
     assert main(["find", "ribbon", "3_1"]) == 1
     assert "not slice: s over Q gives g4 >= 1" in capsys.readouterr().out
