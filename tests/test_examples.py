@@ -200,6 +200,8 @@ def test_the_positive_trefoil_bounds_a_null_homologous_disk_in_a_punctured_cp2_b
 
 
 def test_movies_with_handles_name_where_they_live():
+    # Gompf–Stipsicz, '4-Manifolds and Kirby Calculus', ch. 4: the belt circle of a 2-handle (a meridian of its
+    # attaching circle: here a fiber) bounds its cocore disk.
     # the design notes (section 4): fibers capped by cocores lie in B^2 x S^2; a movie between two links through
     # a handle lies in the product of S^1 x S^2 with an interval
     disks, annulus = _example("fibers-bound-disks-in-B2xS2"), _example("trefoil-concordance-in-S1xS2")

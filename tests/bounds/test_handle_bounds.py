@@ -27,6 +27,7 @@ def test_balanced_fibers_bound_annuli_and_the_bound_is_an_equality(p):
 @pytest.mark.parametrize("p", [1, 2])
 def test_balanced_fibers_bound_disks_in_b2xs2_and_the_bound_is_an_equality(p):
     _, two = surface_questions(fibers(p, p), genus=0, fields=("Q", "F2"))
+    # Gompf–Stipsicz, '4-Manifolds and Kirby Calculus', ch. 4: a fiber (the belt circle) bounds a cocore disk;
     # the design notes (section 4): the 2p fibers bound 2p cocore disks of the 2-handle, chi = 2p; the bound
     # 1 - chi >= s(L(0)) = s(unlink of 2p) = 1 - 2p (Rasmussen 2010: s of the unknot is 0; Beliakova–Wehrli 2008:
     # split unions add s - 1) is an equality

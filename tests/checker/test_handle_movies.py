@@ -68,6 +68,8 @@ def test_the_balanced_fibers_bound_disks_in_b2xs2():
         result = check_movie(f"start {spec}\nin B2xS2\n{caps}\nsurface components {2 * p}")
         data = as_json(result)
         assert result.verdict == "verified"
+        # Gompf–Stipsicz, '4-Manifolds and Kirby Calculus', ch. 4: the belt circle of a 2-handle (a meridian of its
+        # attaching circle: here a fiber) bounds its cocore disk.
         # the design notes (section 4): F(p, p) bounds 2p cocore disks in B^2 x S^2, chi = 2p; the start is
         # null-homologous (p strands each way), and so is the surface
         assert data["surface"]["lives_in"] == "B^2 x S^2" and data["surface"]["fiber_caps"] == [[p, p]]
