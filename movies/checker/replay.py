@@ -24,18 +24,14 @@ from movies.checker import search
 from movies.checker.distinguish import first_difference
 from movies.checker.judge import Expectation, judge
 from movies.checker.result import REFUTED, CheckResult, Finding, StepRecord
-from movies.diagram.handles import HandleDiagram, capped, carried, fiber_of, keep_off, slid
+from movies.diagram.handles import (HandleDiagram, capped, carried, fiber_of, keep_off, pieces, pulled, slid, swept,
+                                   slid_past_strand)
 from movies.diagram.model import Diagram
 from movies.diagram.steps import MoveRecord, Places, Transition, growth, identity_transition, perform, places_named
 from movies.errors import InputError, LocatedLimitError, MoveError
 from movies.language.files import read_movie
 from movies.language.movie import MOVE_KINDS, Movie, Statement
 from movies.wording import plural
-
-
-def reversed_by(transition: Transition) -> tuple[int, ...]:
-    """The components after a step whose orientation it reversed."""
-    return tuple(after for _, after, same in transition.links if not same)
 
 
 def _names_in(diagram: Diagram) -> str:
@@ -95,7 +91,7 @@ class _Replay:
         try:
             if self.movie.handles is not None:
                 self.admit(statement)
-            elif statement.kind in ("cap", "slide"):
+            elif statement.kind in ("cap", "slide", "pull"):
                 raise MoveError(f"'{statement.kind}' is a step of a movie with handles; this one starts without any "
                                 "(write the first frame as 'DIAGRAM with handle across ...')")
             if statement.kind == "simplify":
@@ -145,8 +141,9 @@ class _Replay:
             if claimed is None or self.handles is None or len(claimed.gates) != len(self.handles.gates):
                 raise MoveError("in a movie with handles an isotopy claim names the handles too ('isotopic to DIAGRAM "
                                 f"with handle across ...'), as many as the frame has ({len(self.movie.handles.gates)})")
-        if self.handles is None and kind in ("cap", "slide"):
-            raise MoveError("no handle has a strand through it any more: there is no fiber to cap or gate to slide")
+        if self.handles is None and kind in ("cap", "slide", "pull"):
+            raise MoveError("no handle has a strand through it any more: there is no fiber to cap, gate to slide or "
+                            "strand to pull back")
         if kind == "death":
             component = statement.record.component
             if component in self.frame.components:
@@ -166,14 +163,18 @@ class _Replay:
         if self.handles is None:
             return None
         if record.kind == "slide":
-            return slid(self.handles, record.handle, record.crossing)
+            if record.crossing is not None:
+                return slid(self.handles, record.handle, record.crossing)
+            return slid_past_strand(self.handles, record.handle, record.crossings)
+        if record.kind == "pull":
+            return pulled(self.handles, record.handle, record.edge)
         if record.kind == "cap":
             handle, direction = fiber_of(self.handles, record.component)
             self.result.caps.append((self.number - 1, handle, direction))
             return capped(self.handles, record.component, outcome.diagram)
-        places = outcome.places
-        keep_off(self.handles, places.edges, places.crossings, f"'{record}'")
-        return carried(self.handles, outcome.diagram, reversed_by(outcome.transition))
+        keep_off(self.handles, record, f"'{record}'")
+        return carried(self.handles, outcome.diagram, pieces(record, self.frame, outcome.diagram),
+                       outcome.reversed_edges, swept(record, self.frame, outcome.diagram))
 
     def check_size(self, statement: Statement, record: MoveRecord, before: Diagram) -> None:
         """Refuse a move whose frame would be past the limits, before it is made."""
@@ -187,10 +188,10 @@ class _Replay:
 
     def simplify(self, statement: Statement):
         target = statement.args
-        outcome = search.simplify_frame(self.frame, target, self.budget)
+        outcome = search.simplify_frame(self.frame, target, self.budget, self.handles)
         found = tuple(outcome.moves)
         if self.handles is not None:
-            self.handles_after(outcome.moves)
+            self.handles_after(outcome.records)
         if outcome.reached:
             note = f"found {plural(len(found), 'Reidemeister move')}"
         else:
@@ -244,9 +245,8 @@ class _Replay:
         frame, handles = self.frame, self.handles
         for move in moves:
             done = perform(move, frame)
-            places = done.places
-            keep_off(handles, places.edges, places.crossings, f"step {self.number}: the search's move '{move}'")
-            frame, handles = done.diagram, carried(handles, done.diagram, reversed_by(done.transition))
+            frame, handles = done.diagram, carried(handles, done.diagram, pieces(move, frame, done.diagram),
+                                                   sweeps=swept(move, frame, done.diagram))
         self.handles = handles
 
     def isotopic(self, statement: Statement):

@@ -14,6 +14,7 @@ from dataclasses import dataclass, field
 
 from movies.diagram.isotopy import isomorphism, reflect_and_switch
 from movies.diagram.model import Diagram
+from movies.errors import MoveError
 
 #: seconds a search may take unless the movie or the command line says otherwise
 DEFAULT_BUDGET = 5.0
@@ -25,6 +26,7 @@ class Simplified:
     reached: bool
     moves: tuple[str, ...]
     why: str = ""  # why the search stopped short of its target (empty when it reached it)
+    records: tuple = ()  # the moves as MoveRecords, in order
 
 
 @dataclass(frozen=True)
@@ -75,12 +77,14 @@ def _budget(seconds: float):
     return Budget(moves=max(200, int(300 * seconds)), seconds=float(seconds))
 
 
-def simplify_frame(frame: Diagram, target: dict, budget: float) -> Simplified:
+def simplify_frame(frame: Diagram, target: dict, budget: float, handles=None) -> Simplified:
     """Run the search toward a simplify step's target (a dict as the movie reader builds it).
 
     Parameters: the frame; ``target`` (``{"target": "fewest" | "crossingless" | "crossings" |
     "diagram", ...}``); the budget in seconds. Returns a :class:`Simplified`: the frame it
-    reached, whether that is the target, the moves as movie lines, and why it stopped short.
+    reached, whether that is the target, the moves as movie lines, and why it stopped short. With
+    ``handles`` (the frame's :class:`~movies.diagram.handles.HandleDiagram`) the search takes
+    only moves that keep them.
 
     >>> from movies.diagram.constructors import from_braid
     >>> found = simplify_frame(from_braid([1, -1]), {"target": "crossingless"}, 1)
@@ -95,9 +99,20 @@ def simplify_frame(frame: Diagram, target: dict, budget: float) -> Simplified:
         goal = target["diagram"]
     from movies.diagram import simplify as engine
 
-    result = engine.simplify(frame, target=goal, budget=_budget(budget))
+    carry = None
+    if handles is not None:
+        if kind == "diagram":
+            raise MoveError("in a movie with handles, 'simplify to' takes a crossing count or 'crossingless'; "
+                            "for a diagram write 'isotopic to DIAGRAM with handle across ...'")
+        from movies.diagram.handles import carried, pieces, swept
+
+        def carry(link, before, record, after):
+            return carried(link, after, pieces(record, before, after), sweeps=swept(record, before, after))
+
+    result = engine.simplify(frame, target=goal, budget=_budget(budget), carry=carry, extra=handles)
     why = "" if result.reached else stop_reason(result.stopped, budget)
-    return Simplified(result.diagram, bool(result.reached), tuple(str(m) for m in result.moves), why)
+    return Simplified(result.diagram, bool(result.reached), tuple(str(m) for m in result.moves), why,
+                      tuple(result.moves))
 
 
 def certify(frame: Diagram, claimed: Diagram, budget: float) -> Certification:

@@ -35,11 +35,14 @@ from typing import Sequence
 from movies.diagram.constructors import braid_closure, from_braid, reverse
 from movies.diagram.model import Diagram, Side
 from movies.diagram.moves import twist
-from movies.diagram.moves.twist import arcs_tangled, gate_arcs, gate_path
-from movies.errors import DiagramError, MoveError
+from movies.diagram.moves.reidemeister import kinks_at
+from movies.diagram.moves.base import _check_edge
+from movies.diagram.moves.twist import _gate_walk, arcs_tangled, gate_arcs, gate_path
+from movies.errors import DiagramError, InternalError, MoveError
 
 __all__ = ["Gate", "HandleDiagram", "handle_diagram", "regated", "fibers", "closed_braid", "twisted",
-           "gate_faces", "keep_off", "carried", "fiber_of", "capped", "slid"]
+           "gate_faces", "keep_off", "pieces", "swept", "carried", "fiber_of", "capped", "slid", "slid_past_strand", "pulled", "straightened",
+           "handle_gate_path"]
 
 #: how many orientations the search for null-homologous ones tries at most (2^components)
 MOST_ORIENTATIONS = 1 << 16
@@ -58,6 +61,11 @@ class Gate:
 
     def start_face(self, diagram: Diagram) -> int:
         return diagram.side_face[Side(self.edges[0], self.hand)]
+
+    def straight(self) -> tuple[int, ...]:
+        """The edges with every turn-back left out: what the handle's sphere meets after each is
+        pulled back (see :func:`straightened`)."""
+        return straightened(self.edges)
 
 
 @dataclass(frozen=True)
@@ -105,6 +113,107 @@ class HandleDiagram:
         return sorted(found, key=lambda s: (len(s), s))
 
 
+def straightened(edges: Sequence[int]) -> tuple[int, ...]:
+    """The edges a gate crosses with every turn-back left out.
+
+    A strand that crosses a gate and straight back (the same edge twice in a row: between the two
+    passages the edge has no crossing and the gate crosses nothing else) can be pulled back off
+    the handle's sphere by an isotopy; after that, the strands on either side may turn back in
+    turn, so the turn-backs cancel like a free reduction.
+
+    >>> straightened([4, 1, 2, 2, 1, 7])
+    (4, 7)
+    """
+    kept: list[int] = []
+    for edge in edges:
+        if kept and kept[-1] == edge:
+            kept.pop()
+        else:
+            kept.append(edge)
+    return tuple(kept)
+
+
+def handle_gate_path(diagram: Diagram, edges: Sequence[int],
+                     start_face: int | None = None) -> tuple[list[int], list[int]]:
+    """The faces a handle's gate runs through and the direction of each strand it crosses.
+
+    As :func:`~movies.diagram.moves.twist.gate_path`, except that a strand may turn straight back
+    through the gate (the same edge twice in a row, see :func:`straightened`); the gate with its
+    turn-backs left out must be a simple path. Raises :class:`~movies.errors.MoveError` saying why.
+
+    >>> from movies.diagram.constructors import unknot
+    >>> handle_gate_path(unknot(), [1, 1], 1)
+    ([1, 2, 1], [1, -1])
+    """
+    edges = list(edges)
+    straight = straightened(edges)
+    if len(straight) == len(edges):
+        return gate_path(diagram, edges, start_face)
+    repeated = sorted({edge for edge in straight if straight.count(edge) > 1})
+    if repeated:
+        raise MoveError(f"the gate crosses edge {repeated[0]} more than once, and not straight back (edges "
+                        f"{edges}); a strand crosses a gate twice only by turning straight back, as in "
+                        f"'... {repeated[0]} {repeated[0]} ...'")
+    for edge in set(edges):
+        _check_edge(diagram, edge)
+    beside = [int(face) for face in diagram.faces_beside(edges[0])]
+    if start_face is not None and start_face not in beside:
+        raise MoveError(f"start_face {start_face} does not border edge {edges[0]} "
+                        f"(it lies between faces {beside[0]} and {beside[1]})")
+    found, why = {}, {}
+    for face in [start_face] if start_face is not None else beside:
+        walk = _gate_walk(diagram, edges, face, simple=False)
+        if isinstance(walk, str):
+            why[face] = walk
+        elif _drawable(diagram, [(edges, *walk)]) is not None:
+            why[face] = f"the gate would cross itself in face {_drawable(diagram, [(edges, *walk)])}"
+        else:
+            found[face] = walk
+    if len(found) == 2:
+        raise MoveError(f"a gate across edges {edges} can start in face {beside[0]} or in face {beside[1]} "
+                        "(the two sides of the first edge); say which with start_face")
+    if not found:
+        raise MoveError(f"no gate crosses edges {edges} in this order: " + "; ".join(
+            f"starting in face {face}, {reason}" for face, reason in why.items()))
+    return next(iter(found.values()))
+
+
+#: how many turn-backs, over all gates, a frame may have (each is drawn two ways when checked)
+MOST_TURN_BACKS = 10
+
+
+def _drawable(diagram: Diagram, paths) -> int | None:
+    """None when the gates (edges, faces, directions) can be drawn in the diagram without any
+    crossing another or itself; otherwise a face where they cannot.
+
+    Where a strand turns back through a gate, the two passages lie on one edge in an order the
+    edges do not record: both orders are tried.
+    """
+    twice = [(number, edge) for number, (edges, _, _) in enumerate(paths)
+             for edge in dict.fromkeys(edges) if edges.count(edge) == 2]
+    if len(twice) > MOST_TURN_BACKS:
+        raise MoveError(f"the gates have {len(twice)} strands turning back through them; at most "
+                        f"{MOST_TURN_BACKS} are checked: pull some back first")
+    face = None
+    for flips in product((False, True), repeat=len(twice)):
+        swapped = {pair for pair, flip in zip(twice, flips) if flip}
+        arcs: dict[int, list] = {}
+        for number, (edges, faces, directions) in enumerate(paths):
+            rank, seen = list(range(len(edges))), {}
+            for i, edge in enumerate(edges):
+                if edge in seen and (number, edge) in swapped:
+                    rank[i], rank[seen[edge]] = seen[edge], i
+                seen.setdefault(edge, i)
+            for i in range(1, len(edges)):
+                entry = (Side(edges[i - 1], "R" if directions[i - 1] > 0 else "L"), rank[i - 1])
+                leave = (Side(edges[i], "L" if directions[i] > 0 else "R"), rank[i])
+                arcs.setdefault(faces[i], []).append((entry, leave))
+        face = arcs_tangled(diagram, arcs)
+        if face is None:
+            return None
+    return face
+
+
 def handle_diagram(diagram: Diagram, gates: Sequence[tuple[Sequence[int], int | None]]) -> HandleDiagram:
     """A diagram with handles, each gate given as (edges crossed in order, start face or None).
 
@@ -129,31 +238,25 @@ def handle_diagram(diagram: Diagram, gates: Sequence[tuple[Sequence[int], int | 
     for index, (edges, start_face) in enumerate(gates, start=1):
         edges = tuple(edges)
         try:
-            faces, directions = gate_path(diagram, edges, start_face)
+            faces, directions = handle_gate_path(diagram, edges, start_face)
         except MoveError as err:  # the notation names the start face with 'from face F'
             raise MoveError(f"handle {index}: " + str(err).replace("with start_face", "with 'from face F'")) from None
         left, _ = diagram.faces_beside(edges[0])
         checked.append(Gate(edges, "L" if faces[0] == left else "R"))
-        paths.append((edges, faces, tuple(directions)))
+        paths.append((edges, faces, directions))
     owner: dict[int, int] = {}
     for index, gate in enumerate(checked, start=1):
-        for edge in gate.edges:
+        for edge in dict.fromkeys(gate.edges):
             if edge in owner:
                 raise MoveError(f"handles {owner[edge]} and {index} both cross edge {edge}; a strand between "
                                 "two handles needs an edge of its own for each")
             owner[edge] = index
-    arcs: dict[int, list[tuple[Side, Side]]] = {}
-    whose: dict[int, set[int]] = {}
-    for index, path in enumerate(paths, start=1):
-        for face, pairs in gate_arcs(*path).items():
-            arcs.setdefault(face, []).extend(pairs)
-            whose.setdefault(face, set()).add(index)
-    tangled = arcs_tangled(diagram, arcs)
+    tangled = _drawable(diagram, paths) if len(paths) > 1 else None
     if tangled is not None:
-        crossing = sorted(whose[tangled])
+        crossing = [index for index, (_, faces, _) in enumerate(paths, start=1) if tangled in faces[1:-1]]
         raise MoveError(f"handles {' and '.join(map(str, crossing))} cross each other in face {tangled}: "
                         "their gates cannot be drawn apart there")
-    return HandleDiagram(diagram, tuple(checked), tuple(path[2] for path in paths))
+    return HandleDiagram(diagram, tuple(checked), tuple(tuple(path[2]) for path in paths))
 
 
 def regated(link: HandleDiagram, diagram: Diagram) -> HandleDiagram:
@@ -221,8 +324,9 @@ def twisted(link: HandleDiagram, k: int | Sequence[int]) -> Diagram:
         raise DiagramError(f"{len(turns)} numbers of twists for {len(link.gates)} handles")
     diagram = link.diagram
     for gate, amount in zip(link.gates, turns):
-        if amount:
-            diagram = twist(diagram, gate.edges, amount, gate.start_face(diagram)).diagram
+        straight = gate.straight()  # a strand turning back through the gate is pulled back first
+        if amount and straight:
+            diagram = twist(diagram, straight, amount, gate.start_face(diagram)).diagram
     return diagram
 
 
@@ -235,49 +339,149 @@ def gate_faces(link: HandleDiagram) -> list[tuple[int, ...]]:
     >>> gate_faces(fibers(1, 1))
     [(1, 2, 3)]
     """
-    return [tuple(gate_path(link.diagram, gate.edges, gate.start_face(link.diagram))[0]) for gate in link.gates]
+    return [tuple(handle_gate_path(link.diagram, gate.edges, gate.start_face(link.diagram))[0]) for gate in link.gates]
 
 
-def keep_off(link: HandleDiagram, edges, crossings, what: str) -> None:
-    """Refuse a step that acts on a gate: on an edge a gate crosses, or at a crossing at the end
-    of such an edge.
+def keep_off(link: HandleDiagram, record, what: str) -> None:
+    """Refuse a band along a path, or with twists, that touches an edge a gate crosses.
 
-    A step that keeps off every gate is, for every k, the same step in S³ between the twisted
-    approximations, which is what makes the S³ inequalities hold for the surface. Whether it also
-    keeps clear of a gate's path through the faces (a band across a face the gate runs through
-    must not cut it) is checked afterwards, by :func:`carried`: the gate must still run through
-    the faces of the new frame across the same edges. Raises :class:`~movies.errors.MoveError`
-    naming the handle.
+    Every other step may act on a strand through a handle, away from where it passes through:
+    :func:`carried` finds where the passage went. A band along a path is several moves at once
+    (a finger over or under each edge it crosses, then the band); it is refused on such a strand
+    rather than followed. Raises :class:`~movies.errors.MoveError` naming the handle.
 
-    >>> keep_off(fibers(1, 1), edges=(2,), crossings=(), what="a band")
+    >>> from movies.diagram.steps import MoveRecord
+    >>> keep_off(fibers(1, 1), MoveRecord("band", first=2, second=1, path=((1, True),)), "a band")
     Traceback (most recent call last):
     ...
-    movies.errors.MoveError: a band acts on edge 2, which handle 1 crosses (its gate crosses edges 1, 2): a step in a movie with handles keeps off the strands where they pass through a handle
+    movies.errors.MoveError: a band acts on edge 2, which handle 1 crosses (its gate crosses edges 1, 2): a band along a path or with twists keeps off the strands that pass through a handle; take it in steps (Reidemeister moves, then a band across one face)
     """
+    if record.kind != "band" or not (record.path or record.twists):
+        return
+    touched = [record.first, record.second] + [edge for edge, _ in record.path or ()]
     for index, gate in enumerate(link.gates, start=1):
-        where = set(gate.edges)
-        crossed = ", ".join(map(str, gate.edges))
-        hit = where & set(edges)
+        hit = [edge for edge in touched if edge in gate.edges]
         if hit:
-            raise MoveError(f"{what} acts on edge {min(hit)}, which handle {index} crosses (its gate crosses edges "
-                            f"{crossed}): a step in a movie with handles keeps off the strands where they pass "
-                            "through a handle")
-        at = sorted(c for c in crossings if set(link.diagram.crossing(c)) & where)
-        if at:
-            raise MoveError(f"{what} moves crossing {at[0]}, at the end of an edge handle {index} crosses (its gate "
-                            f"crosses edges {crossed}): a step in a movie with handles keeps off the strands where "
-                            "they pass through a handle")
+            raise MoveError(f"{what} acts on edge {hit[0]}, which handle {index} crosses (its gate crosses edges "
+                            f"{', '.join(map(str, gate.edges))}): a band along a path or with twists keeps off the "
+                            "strands that pass through a handle; take it in steps (Reidemeister moves, then a band "
+                            "across one face)")
 
 
-def carried(link: HandleDiagram, diagram: Diagram, reversed_components=()) -> HandleDiagram:
-    """The same handles on the diagram after a step that kept off them, checked again.
+def pieces(record, before: Diagram, after: Diagram) -> dict[int, tuple[int, ...]]:
+    """For each edge a step changed, the edges of the new frame that together make up its old
+    stretch of strand (a passage through a gate on it now lies on one of them).
 
-    Each gate keeps its edges and the side of its first edge it starts on (sides, unlike face
-    names, survive moves elsewhere); ``reversed_components`` names the components of ``diagram``
-    whose orientation the step reversed (a band may), on which left and right trade places. The
-    check fails, with the handle named, when the step cut the gate's path: a band or a finger
-    across a face the gate runs through, on the wrong side of it, leaves the gate's edges in
-    different faces.
+    Edges not listed are unchanged. Adding crossings splits an edge (R1, R2 add), removing them
+    merges it into the edge its stretch became (R1, R2 remove), R3 replaces the triangle's edges,
+    and a band cuts its two edges and reconnects them (one across the other).
+
+    >>> from movies.diagram.constructors import unlink
+    >>> from movies.diagram.steps import MoveRecord, apply
+    >>> record = MoveRecord("R2+", over=1, under=2, face=2)
+    >>> two = unlink(2)
+    >>> pieces(record, two, apply(record, two))
+    {1: (1, 3), 2: (2, 4)}
+    """
+    kind = record.kind
+    new = set(after.edges()) - set(before.edges())
+    if kind == "R1+":
+        return {record.edge: tuple(sorted({record.edge} | new))}
+    if kind == "R2+":
+        added = set(after.crossings) - set(before.crossings)
+
+        def on_strand(edge, over):  # a new edge leaving a new crossing on the over (odd) or under strand
+            tail = after.edge_ends[edge][0]
+            return tail.crossing in added and (tail.position % 2 == 1) == over
+
+        return {record.over: tuple(sorted({record.over} | {e for e in new if on_strand(e, True)})),
+                record.under: tuple(sorted({record.under} | {e for e in new if on_strand(e, False)}))}
+    if kind in ("R1-", "R2-"):
+        found = {}
+        for edge in before.edges():
+            if edge in after.edge_ends or edge in after.loops:
+                continue
+            back = edge
+            while back not in after.edge_ends and back not in after.loops:
+                back = _previous(before, back)
+            found[edge] = (back,)
+        return found
+    if kind == "R3":
+        found = {}
+        for edge in new:
+            tail, head = after.edge_ends[edge]
+            for old in before.edges():
+                if old in before.edge_ends and old not in after.edges():
+                    ends = before.edge_ends[old]
+                    if (ends[0].crossing, ends[1].crossing) == (head.crossing, tail.crossing):
+                        found[old] = (edge,)
+        return found
+    if kind == "band" and not (record.path or record.twists):
+        joined = {record.first, record.second}
+        kept = tuple(sorted(edge for edge in joined | new if edge in after.edges()))
+        return {edge: kept for edge in joined}
+    return {}
+
+
+def _previous(diagram: Diagram, edge: int) -> int:
+    """The edge before ``edge`` along its strand."""
+    if edge in diagram.loops:
+        return edge
+    tail = diagram.edge_ends[edge][0]
+    return diagram.dart_edge[type(tail)(tail.crossing, (tail.position + 2) % 4)]
+
+
+def _small_faces(diagram: Diagram, edges) -> list[int]:
+    """The faces of ``diagram`` bounded by one cycle of one or two of ``edges`` only (a kink's
+    monogon, a finger's bigon)."""
+    edges = set(edges)
+    return [face for face, cycles in diagram.faces.items()
+            if len(cycles) == 1 and len(cycles[0]) <= 2 and all(side.edge in edges for side in cycles[0])]
+
+
+def swept(record, before: Diagram, after: Diagram) -> tuple[set[int], set[int], set[int]]:
+    """Where a Reidemeister move sweeps: (faces of the old frame that must hold no end of a gate,
+    faces of the old frame no gate may run through at all, faces of the new frame that must hold
+    no end of a gate).
+
+    A gate's ends are where the handle's circle passes through the plane of the diagram; a kink
+    or a finger that closes around one, or one removed around one, passes the strand through
+    that circle. A strand through a handle may run through a bigon (the two strands pass each
+    other inside the handle's disk), but no gate may cross an R3 triangle: the third strand
+    would sweep across the disk.
+
+    >>> from movies.diagram.steps import MoveRecord, apply
+    >>> from movies.diagram.constructors import unknot
+    >>> record = MoveRecord("R1+", edge=1, hand="L", sign=1)
+    >>> swept(record, unknot(), apply(record, unknot()))
+    (set(), set(), {3})
+    """
+    kind = record.kind
+    new_edges = set(after.edges()) - set(before.edges())
+    if kind in ("R1+", "R2+"):
+        return set(), set(), set(_small_faces(after, new_edges))
+    if kind == "R1-":
+        loops = [record.kink] if record.kink is not None else [max(kinks_at(before, record.crossing))]
+        return set(_small_faces(before, loops)), set(), set()
+    if kind == "R2-":
+        return {record.face}, set(), set()
+    if kind == "R3":
+        return set(), {record.face}, set()
+    return set(), set(), set()
+
+
+def carried(link: HandleDiagram, diagram: Diagram, changed: dict[int, tuple[int, ...]] | None = None,
+            reversed_edges=(), sweeps: tuple[set[int], set[int], set[int]] = (set(), set(), set())) -> HandleDiagram:
+    """The same handles on the frame after a step, checked again.
+
+    Each gate keeps the side of its first edge it starts on (sides, unlike face names, survive
+    moves elsewhere; ``reversed_edges``, old names, are the edges the step reversed, on which left
+    and right trade places). A passage on an edge the step changed lies on one of its pieces
+    (``changed``, from :func:`pieces`); every choice is tried, in order, and the first that makes
+    each gate a path through the new frame, drawn apart from the others, is taken. Any such choice
+    is the same step made on one side of the passage or the other, away from the handle's circle.
+    When none is, the step cut through the gate (a finger or a band across it, or a strand pulled
+    through it), and the check fails with the handle named.
 
     >>> from movies.diagram.moves import birth
     >>> from movies.diagram.constructors import unlink
@@ -285,17 +489,51 @@ def carried(link: HandleDiagram, diagram: Diagram, reversed_components=()) -> Ha
     >>> carried(link, birth(link.diagram, 4)).gates == link.gates
     True
     """
-    flipped = set(reversed_components)
-    starts = []
+    changed = changed or {}
+    ends_before, crossed_before, ends_after = sweeps
+    for index, faces in enumerate(gate_faces(link), start=1):
+        if {faces[0], faces[-1]} & ends_before or set(faces) & crossed_before:
+            raise MoveError(f"the step sweeps across handle {index}: its gate runs through face "
+                            f"{sorted(({faces[0], faces[-1]} & ends_before) | (set(faces) & crossed_before))[0]}, "
+                            "where the move would pass a strand through the handle's circle")
+    flipped = set(reversed_edges)
+    hands, choices = [], []
     for gate in link.gates:
         hand = gate.hand
-        if diagram.component_of(gate.edges[0]) in flipped:
+        if gate.edges[0] in flipped:
             hand = "R" if hand == "L" else "L"
-        starts.append((gate.edges, diagram.side_face[Side(gate.edges[0], hand)]))
-    try:
-        return handle_diagram(diagram, starts)
-    except MoveError as err:
-        raise MoveError(f"the step cuts through a handle's gate: {err}") from None
+        hands.append(hand)
+        choices.append([changed.get(edge, (edge,)) for edge in gate.edges])
+    flat = [options for gate_choices in choices for options in gate_choices]
+    tried, problem = 0, None
+    for picked in product(*flat):
+        tried += 1
+        if tried > MOST_CHOICES:
+            break
+        starts, at = [], 0
+        for gate, hand in zip(link.gates, hands):
+            edges = tuple(picked[at:at + len(gate.edges)])
+            at += len(gate.edges)
+            starts.append((edges, diagram.side_face.get(Side(edges[0], hand))))
+        if any(face is None for _, face in starts):
+            continue
+        try:
+            result = handle_diagram(diagram, starts)
+        except MoveError as err:
+            problem = problem or err
+            continue
+        closed = [face for faces in gate_faces(result) for face in (faces[0], faces[-1]) if face in ends_after]
+        if closed:
+            problem = problem or MoveError(f"a kink or finger would close around the end of a gate in face {closed[0]}")
+            continue
+        if any(sweeps) and result.directions != link.directions:  # a Reidemeister move keeps every passage
+            raise InternalError("a Reidemeister move changed how the strands pass through a handle")
+        return result
+    raise MoveError(f"the step cuts through a handle's gate: {problem or 'no way to keep the gates'}")
+
+
+#: how many ways of placing the passages on the pieces of changed edges :func:`carried` tries
+MOST_CHOICES = 4096
 
 
 def fiber_of(link: HandleDiagram, component: int) -> tuple[int, int]:
@@ -348,12 +586,48 @@ def capped(link: HandleDiagram, component: int, diagram: Diagram) -> HandleDiagr
             kept.append((rest, None, Side(rest[0], gate.hand)))
             continue
         # the gate began across the capped circle: it now begins in the face it entered next
-        path = gate_path(link.diagram, gate.edges, gate.start_face(link.diagram))[0]
+        path = handle_gate_path(link.diagram, gate.edges, gate.start_face(link.diagram))[0]
         left, _ = link.diagram.faces_beside(rest[0])
         kept.append((rest, None, Side(rest[0], "L" if path[1] == left else "R")))
     if not kept:
         return None
     return handle_diagram(diagram, [(edges, diagram.side_face[side]) for edges, _, side in kept])
+
+
+def pulled(link: HandleDiagram, handle: int, edge: int) -> HandleDiagram | None:
+    """The handles after the strand on ``edge``, which turns straight back through gate
+    ``handle``, is pulled back off it.
+
+    Between its two passages the edge has no crossing and the gate crosses nothing else, so the
+    arc they bound with the gate can be lifted over the diagram and pushed back through the
+    handle's disk: an isotopy in the complement of the handle's circle, so every L(k) keeps its
+    link type. The frame stays; the gate loses the two passages (a gate left with no strands is
+    dropped, and None is returned when no gate has strands left). Raises
+    :class:`~movies.errors.MoveError` saying why the edge does not turn back through that gate.
+
+    >>> from movies.language.spec import parse_handle_diagram
+    >>> link = parse_handle_diagram("unlink(2) with handle across 1 2 2 from face 1")
+    >>> pulled(link, 1, 2).gates
+    (Gate(edges=(1,), hand='L'),)
+    """
+    if not 1 <= handle <= len(link.gates):
+        raise MoveError(f"there is no handle {handle} (handles 1 to {len(link.gates)})")
+    diagram, gate = link.diagram, link.gates[handle - 1]
+    edges = gate.edges
+    at = next((j for j in range(len(edges) - 1) if edges[j] == edges[j + 1] == edge), None)
+    if at is None:
+        crossed = ", ".join(map(str, edges))
+        raise MoveError(f"edge {edge} does not turn straight back through handle {handle} (its gate crosses edges "
+                        f"{crossed}): only a strand the gate crosses twice in a row is pulled back")
+    faces = handle_gate_path(diagram, edges, gate.start_face(diagram))[0]
+    rest = edges[:at] + edges[at + 2:]
+    kept = []
+    for number, other in enumerate(link.gates, start=1):
+        if number != handle:
+            kept.append((other.edges, other.start_face(diagram)))
+        elif rest:  # the gate still starts in the face it started in (beside its new first edge)
+            kept.append((rest, faces[0]))
+    return handle_diagram(diagram, kept) if kept else None
 
 
 def slid(link: HandleDiagram, handle: int, crossing: int) -> HandleDiagram:
@@ -377,7 +651,7 @@ def slid(link: HandleDiagram, handle: int, crossing: int) -> HandleDiagram:
     diagram, gate = link.diagram, link.gates[handle - 1]
     if crossing not in diagram.crossings:
         raise MoveError(f"crossing {crossing} is not in the diagram (crossings: {sorted(diagram.crossings)})")
-    faces = gate_path(diagram, gate.edges, gate.start_face(diagram))[0]
+    faces = handle_gate_path(diagram, gate.edges, gate.start_face(diagram))[0]
     at = set(diagram.crossing(crossing))
     for j in range(len(gate.edges) - 1):
         a, b = gate.edges[j], gate.edges[j + 1]
@@ -411,6 +685,83 @@ def slid(link: HandleDiagram, handle: int, crossing: int) -> HandleDiagram:
         return result
     raise MoveError(f"handle {handle} cannot slide past crossing {crossing}: its gate does not cross two strands "
                     f"that run into (or out of) crossing {crossing} one after the other, through the corner there")
+
+
+def slid_past_strand(link: HandleDiagram, handle: int, crossings: Sequence[int]) -> HandleDiagram:
+    """The handles after sliding gate ``handle`` along its bundle past one strand that crosses
+    every strand of the bundle, over all of them or under all, at ``crossings`` (in the gate's order).
+
+    The gate must run along the strand: from the corner of the first crossing, through the face
+    between each two strands of the bundle and the stretch of the strand between their crossings,
+    to the corner of the last. It then crosses the bundle's continuations beyond the strand. The
+    handle's circle stays small around the bundle and passes under the strand (or over it), an
+    isotopy off the link, so every L(k) keeps its link type. Raises
+    :class:`~movies.errors.MoveError` saying why the slide does not apply.
+
+    >>> from movies.language.spec import parse_handle_diagram
+    >>> link = parse_handle_diagram("pd[[1,5,2,4],[3,1,4,6],[5,3,6,2]] with handle across 4 from face 1")
+    >>> slid_past_strand(link, 1, [2]).gates
+    (Gate(edges=(3,), hand='R'),)
+    """
+    if not 1 <= handle <= len(link.gates):
+        raise MoveError(f"there is no handle {handle} (handles 1 to {len(link.gates)})")
+    diagram, gate = link.diagram, link.gates[handle - 1]
+    edges, crossings = gate.edges, tuple(crossings)
+    refuse = f"handle {handle} cannot slide past the strand through crossings {', '.join(map(str, crossings))}: "
+    if gate.straight() != edges:
+        raise MoveError(refuse + "a strand turns back through its gate; pull it back first")
+    if len(crossings) != len(edges):
+        raise MoveError(refuse + f"the strand must cross each of the {len(edges)} strands through the handle "
+                        f"(its gate crosses edges {', '.join(map(str, edges))}), once each, in the gate's order")
+    faces = handle_gate_path(diagram, edges, gate.start_face(diagram))[0]
+    beyond, strand, over = [], [], set()
+    for edge, crossing in zip(edges, crossings):
+        labels = diagram.crossing(crossing)
+        if labels.count(edge) != 1:
+            raise MoveError(refuse + f"edge {edge} of the bundle does not run into crossing {crossing} (or runs into "
+                            "it twice, a kink)")
+        at = labels.index(edge)
+        beyond.append(labels[(at + 2) % 4])
+        strand.append({labels[(at + 1) % 4], labels[(at + 3) % 4]})
+        over.add(at % 2 == 0)  # the bundle's strand is the under-strand (PD positions 0, 2): the strand is over
+    if len(over) > 1:
+        raise MoveError(refuse + "the strand passes over some strands of the bundle and under others; the handle's "
+                        "circle slides past a strand that lies over the whole bundle or under it")
+    between = []
+    for i in range(len(edges) - 1):
+        shared = strand[i] & strand[i + 1]
+        if not shared:
+            raise MoveError(refuse + f"crossings {crossings[i]} and {crossings[i + 1]} are not next to each other "
+                            "along one strand")
+        (stretch,) = sorted(shared)[:1]
+        if not (_corner(diagram, faces[i + 1], edges[i], stretch)
+                and _corner(diagram, faces[i + 1], stretch, edges[i + 1])):
+            raise MoveError(refuse + f"the gate does not run along the strand between crossings {crossings[i]} and "
+                            f"{crossings[i + 1]} (face {faces[i + 1]} is not the corner between edges {edges[i]}, "
+                            f"{stretch} and {edges[i + 1]})")
+        between.append(stretch)
+    ends = sorted(e for e in strand[0] - set(between[:1]) if _corner(diagram, faces[0], edges[0], e))
+    last = sorted(e for e in strand[-1] - set(between[-1:]) if _corner(diagram, faces[-1], edges[-1], e))
+    if not ends or not last:
+        raise MoveError(refuse + "the gate does not start and end in the corners of the first and last crossing "
+                        "beside the strand")
+    start = next((face for face in diagram.faces_beside(ends[0]) if face != faces[0]), faces[0])
+    kept = [(other.edges, other.start_face(diagram)) if number != handle else (tuple(beyond), start)
+            for number, other in enumerate(link.gates, start=1)]
+    try:
+        return handle_diagram(diagram, kept)
+    except MoveError as err:
+        raise MoveError(refuse + str(err)) from None
+
+
+def _corner(diagram: Diagram, face: int, a: int, b: int) -> bool:
+    """Whether edges ``a`` and ``b`` follow one another on the boundary of ``face`` (meet at a corner of it)."""
+    for cycle in diagram.faces[face]:
+        for j, side in enumerate(cycle):
+            following = cycle[(j + 1) % len(cycle)]
+            if {side.edge, following.edge} == {a, b}:
+                return True
+    return False
 
 
 def _through(diagram: Diagram, crossing: int, edge: int, forward: bool) -> int:

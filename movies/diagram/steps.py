@@ -54,15 +54,18 @@ FIELDS = {
     "birth": ("face", "counterclockwise", "names"),
     "death": ("component",),
     "cap": ("component",),
-    "slide": ("handle", "crossing"),
+    "slide": ("handle", "crossing", "crossings"),
+    "pull": ("handle", "edge"),
     "twist": ("edges", "turns", "start_face", "names"),
 }
 #: every kind of move step
 KINDS = tuple(FIELDS)
 #: fields a record may leave out
-_OPTIONAL = {"kink", "names", "start_face", "path", "twists"} | {"band:face", "birth:counterclockwise"}
+_OPTIONAL = {"kink", "names", "start_face", "path", "twists", "crossings"} | {
+    "band:face", "birth:counterclockwise", "slide:crossing"}
 _ALL = ("edge", "hand", "sign", "crossing", "kink", "over", "under", "face", "first", "second",
-        "counterclockwise", "component", "edges", "turns", "start_face", "names", "path", "twists", "handle")
+        "counterclockwise", "component", "edges", "turns", "start_face", "names", "path", "twists", "handle",
+        "crossings")
 #: per kind, the fields it must have and the fields it must not
 _REQUIRED = {kind: tuple(name for name in fields if name not in _OPTIONAL and f"{kind}:{name}" not in _OPTIONAL)
              for kind, fields in FIELDS.items()}
@@ -82,7 +85,7 @@ class MoveRecord:
     >>> MoveRecord("R4", face=1)
     Traceback (most recent call last):
     ...
-    movies.errors.MoveError: a move is one of R1+, R1-, R2+, R2-, R3, band, birth, death, cap, slide, twist, not 'R4'
+    movies.errors.MoveError: a move is one of R1+, R1-, R2+, R2-, R3, band, birth, death, cap, slide, pull, twist, not 'R4'
     """
 
     kind: str
@@ -106,8 +109,10 @@ class MoveRecord:
     path: tuple[tuple[int, bool], ...] | None = None
     #: a band's half twists, right-handed for positive numbers
     twists: int | None = None
-    #: the handle a slide moves (1, 2, ...)
+    #: the handle a slide moves or a strand is pulled back through (1, 2, ...)
     handle: int | None = None
+    #: where a strand crossing a handle's whole bundle crosses its strands, in the gate's order
+    crossings: tuple[int, ...] | None = None
 
     def __post_init__(self) -> None:
         kind = self.kind
@@ -122,6 +127,9 @@ class MoveRecord:
         for name in _FOREIGN[kind]:
             if values[name] is not None:
                 raise MoveError(f"a {kind} move takes {', '.join(FIELDS[kind])}, not {name}")
+        if kind == "slide" and (values["crossing"] is None) == (values["crossings"] is None):
+            raise MoveError("a slide goes past one crossing of two of the handle's strands, or past the crossings of "
+                            "one strand with the whole bundle: give crossing or crossings, not both")
 
     def arguments(self) -> dict[str, object]:
         """The keyword arguments of the move function, in its order.
@@ -166,7 +174,10 @@ class MoveRecord:
         elif k == "cap":
             text = f"cap fiber {self.component}"
         elif k == "slide":
-            text = f"slide handle {self.handle} past crossing {self.crossing}"
+            text = (f"slide handle {self.handle} past crossing {self.crossing}" if self.crossing is not None
+                    else f"slide handle {self.handle} past crossings {' '.join(map(str, self.crossings))}")
+        elif k == "pull":
+            text = f"pull back edge {self.edge} through handle {self.handle}"
         else:
             text = (f"twist {self.turns:+d} across {' '.join(map(str, self.edges))}"
                     + (f" from face {self.start_face}" if self.start_face is not None else ""))
@@ -232,6 +243,8 @@ class Outcome:
     transition: Transition
     places: Places
     note: str = ""
+    #: edges (names before the step) that run the other way after it: see SaddleResult
+    reversed_edges: tuple[int, ...] = ()
 
 
 def _chosen(record: MoveRecord) -> dict:
@@ -254,13 +267,24 @@ _CALL: dict[str, Callable[[Diagram, MoveRecord], object]] = {
     # checked where the handles are known (the replay)
     "cap": lambda d, r: moves.death(d, r.component),
     # sliding a handle moves its gate, not the link: the frame stays; the replay moves the gate
-    "slide": lambda d, r: d if r.crossing in d.crossings else _no_crossing(d, r.crossing),
+    "slide": lambda d, r: d if all(c in d.crossings for c in _slid_past(r)) else _no_crossing(d, _slid_past(r)),
+    # pulling a strand back through a handle moves it off the handle's sphere: the frame stays
+    "pull": lambda d, r: d if r.edge in d.edges() else _no_edge(d, r.edge),
     "twist": lambda d, r: moves.twist(d, r.edges, r.turns, r.start_face, **_chosen(r)),
 }
 
 
-def _no_crossing(diagram: Diagram, crossing: int):
-    raise MoveError(f"crossing {crossing} is not in the diagram (crossings: {sorted(diagram.crossings)})")
+def _slid_past(record: MoveRecord) -> tuple[int, ...]:
+    return (record.crossing,) if record.crossing is not None else record.crossings
+
+
+def _no_crossing(diagram: Diagram, crossings: tuple[int, ...]):
+    missing = next(c for c in crossings if c not in diagram.crossings)
+    raise MoveError(f"crossing {missing} is not in the diagram (crossings: {sorted(diagram.crossings)})")
+
+
+def _no_edge(diagram: Diagram, edge: int):
+    raise MoveError(f"edge {edge} is not in the diagram (edges: {', '.join(map(str, diagram.edges()))})")
 
 
 def apply(record: MoveRecord, diagram: Diagram) -> Diagram:
@@ -298,10 +322,11 @@ def _outcome(record: MoveRecord, before: Diagram, result) -> Outcome:
                 "s" if abs(record.twists) > 1 else "")
         return Outcome(result.diagram, _band_transition(result.saddle),
                        Places(edges=(record.first, record.second) + crossed, faces=result.faces),
-                       _band_note(result.saddle, where))
+                       _band_note(result.saddle, where), result.saddle.reversed_edges)
     if kind == "band":
         return Outcome(result.diagram, _band_transition(result),
-                       Places(edges=(record.first, record.second), faces=(result.face,)), _band_note(result))
+                       Places(edges=(record.first, record.second), faces=(result.face,)), _band_note(result),
+                       result.reversed_edges)
     if kind == "twist":
         gate = tuple((before.component_of(edge), d) for edge, d in zip(record.edges, result.directions))
         transition = Transition("twist", links=tuple((k, k, True) for k in sorted(before.components)),
@@ -316,8 +341,14 @@ def _outcome(record: MoveRecord, before: Diagram, result) -> Outcome:
         return Outcome(result, Transition("death", ended=(record.component,), deaths=1),
                        Places(edges=tuple(before.components[record.component])), f"component {record.component} dies")
     if kind == "slide":
-        return Outcome(result, identity_transition(kind, sorted(before.components)), Places(crossings=(record.crossing,)),
-                       f"handle {record.handle} slides past crossing {record.crossing}")
+        past = _slid_past(record)
+        said = (f"crossing {record.crossing}" if record.crossing is not None
+                else f"the strand through crossings {', '.join(map(str, past))}")
+        return Outcome(result, identity_transition(kind, sorted(before.components)), Places(crossings=past),
+                       f"handle {record.handle} slides past {said}")
+    if kind == "pull":
+        return Outcome(result, identity_transition(kind, sorted(before.components)), Places(edges=(record.edge,)),
+                       f"edge {record.edge} is pulled back through handle {record.handle}")
     if kind == "cap":
         return Outcome(result, Transition("cap", ended=(record.component,), deaths=1),
                        Places(edges=tuple(before.components[record.component])),
@@ -367,7 +398,8 @@ def places_named(record: MoveRecord) -> Places:
     edges = tuple(v for v in (record.edge, record.first, record.second, record.over, record.under, record.kink)
                   if v is not None) + tuple(record.edges or ()) + tuple(edge for edge, _ in record.path or ())
     faces = tuple(v for v in (record.face, record.start_face) if v is not None)
-    return Places(edges=edges, faces=faces, crossings=(record.crossing,) if record.crossing is not None else ())
+    crossings = ((record.crossing,) if record.crossing is not None else ()) + tuple(record.crossings or ())
+    return Places(edges=edges, faces=faces, crossings=crossings)
 
 
 def _band_transition(result: moves.SaddleResult) -> Transition:

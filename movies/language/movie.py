@@ -76,12 +76,13 @@ __all__ = ["Statement", "Movie", "MovieSyntaxError", "MovieInputError", "parse_m
 
 #: the words a statement can start with
 STATEMENT_WORDS = (
-    "title", "start", "band", "R1", "R2", "R3", "birth", "death", "cap", "slide", "twist", "simplify", "isotopic",
+    "title", "start", "band", "R1", "R2", "R3", "birth", "death", "cap", "slide", "pull", "twist", "simplify",
+    "isotopic",
     "expect", "surface", "budget", "in",
 )
 
 #: statements that change the frame
-MOVE_KINDS = ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "cap", "slide", "twist", "simplify",
+MOVE_KINDS = ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "cap", "slide", "pull", "twist", "simplify",
               "isotopic")
 #: the 4-manifolds a movie with handles may say its surface lives in (``in MANIFOLD``)
 MANIFOLDS = {"S1xB3": "S^1 x B^3", "B2xS2": "B^2 x S^2", "MxI": "M x I"}
@@ -390,6 +391,14 @@ class _Reader(Transformer):
     @v_args(meta=True)
     def slide(self, meta, c):
         return self._move(meta, "slide", handle=self.number(c[0]), crossing=self.number(c[1]))
+
+    @v_args(meta=True)
+    def slide_strand(self, meta, c):
+        return self._move(meta, "slide", handle=self.number(c[0]), crossings=tuple(self.number(t) for t in c[1:]))
+
+    @v_args(meta=True)
+    def pull(self, meta, c):
+        return self._move(meta, "pull", handle=self.number(c[1]), edge=self.number(c[0]))
 
     @v_args(meta=True)
     def lives(self, meta, c):

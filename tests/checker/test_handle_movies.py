@@ -25,7 +25,7 @@ def _invalid(text):
 
 
 @pytest.mark.parametrize("step, reason", [
-    ("band 1 2", "acts on edge 1, which handle 1 crosses"),
+    ("band 1 2 twisted 1", "acts on edge 1, which handle 1 crosses"),
     ("death 1", "component 1 passes through handle 1, so it bounds no disk there"),
     ("twist +1 across 1 2", "a twist step in a movie with handles is not offered"),
     ("isotopic to unlink(2)", "in a movie with handles an isotopy claim names the handles too"),

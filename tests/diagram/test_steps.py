@@ -26,6 +26,7 @@ SAMPLES = {
     "death": ("unlink(2)", [], "death 2"),
     "cap": ("unlink(2) with handle across 1 2", ["in B2xS2"], "cap fiber 2"),
     "slide": ("braid(2)[1, 1] with handle across 1 3 from face 1", [], "slide handle 1 past crossing 1"),
+    "pull": ("unlink(2) with handle across 1 2 2 from face 1", [], "pull back edge 2 through handle 1"),
     "twist": ("unlink(2)", [], "twist -1 across 1 2 from face 1"),
 }
 
@@ -55,8 +56,8 @@ def test_every_kind_is_read_performed_marked_and_written_back(kind):
     assert parse_movie(f"start {spec}\n{str(record)}").steps[-1].record == record
     # performed, with the places it acts on in the frame before it
     outcome = perform(record, frame)
-    # a slide moves a handle's gate, not the link: the frame stays
-    assert isinstance(outcome, Outcome) and (outcome.diagram != frame) == (kind != "slide")
+    # a slide or a pull moves a handle's gate, not the link: the frame stays
+    assert isinstance(outcome, Outcome) and (outcome.diagram != frame) == (kind not in ("slide", "pull"))
     assert outcome.places.edges or outcome.places.faces or outcome.places.crossings
     # replayed by the checker through the same outcome
     checked = check_movie("\n".join([f"start {spec}", *before, line]), bounds=False)

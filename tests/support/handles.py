@@ -5,7 +5,7 @@ from __future__ import annotations
 import statistics
 import time
 
-from movies.diagram.handles import carried, handle_diagram, keep_off
+from movies.diagram.handles import carried, handle_diagram, keep_off, pieces, swept
 from movies.diagram.moves.twist import gate_path
 from movies.diagram.steps import MoveRecord, perform
 from movies.errors import MoveError
@@ -35,9 +35,10 @@ def balanced_gate(diagram, rng):
     return None
 
 
-def random_steps(link, rng, count, most_crossings=None, tries=20):
-    """Up to ``count`` random steps (kinks, births, bands, fingers) that keep off the handles of
-    ``link``, found by trying; the records and the handles after each (the first is ``link``)."""
+def random_steps(link, rng, count, most_crossings=None, tries=20, on_gates=False):
+    """Up to ``count`` random steps (kinks, births, bands, fingers) that the checker accepts in a
+    movie with the handles of ``link``, found by trying; the records and the handles after each
+    (the first is ``link``). Unless ``on_gates``, only steps that touch no edge a gate crosses."""
     records, frames = [], [link]
     for _ in range(count * tries):
         if len(records) == count:
@@ -61,8 +62,12 @@ def random_steps(link, rng, count, most_crossings=None, tries=20):
             outcome = perform(record, d)
             if most_crossings is not None and outcome.diagram.crossing_count() > most_crossings:
                 continue
-            keep_off(frames[-1], outcome.places.edges, outcome.places.crossings, "a random step")
-            after = carried(frames[-1], outcome.diagram, [a for _, a, same in outcome.transition.links if not same])
+            crossed = {edge for gate in frames[-1].gates for edge in gate.edges}
+            if not on_gates and crossed & set(outcome.places.edges):
+                continue
+            keep_off(frames[-1], record, "a random step")
+            after = carried(frames[-1], outcome.diagram, pieces(record, d, outcome.diagram), outcome.reversed_edges,
+                            swept(record, d, outcome.diagram))
         except MoveError:
             continue
         records.append(record)

@@ -39,6 +39,9 @@ class SaddleResult:
     components_after: tuple[int, ...]
     joined: tuple[int, ...] = ()
     reversed_component: int | None = None
+    #: the edges (old names) that run the other way afterwards: a band that does not respect the
+    #: orientation reverses a component, or the stretch of one between its two ends
+    reversed_edges: tuple[int, ...] = ()
 
 
 def common_faces(diagram: Diagram, first: int, second: int) -> list[int]:
@@ -93,6 +96,7 @@ def saddle(
     signs = dict(diagram.signs)
     loops = set(diagram.loops)
     alias: dict[Side, Side] = {}
+    reversed_edges: set[int] = set()
     if first == second:
         respects = True
         circle = namer.new("edge")
@@ -142,7 +146,7 @@ def saddle(
     reversed_component = k2 if (not respects and k1 != k2) else None
     return SaddleResult(
         new, face, respects, effect, before, tuple(sorted(new.components)),
-        tuple(sorted({k1, k2})), reversed_component,
+        tuple(sorted({k1, k2})), reversed_component, tuple(sorted(reversed_edges)),
     )
 
 

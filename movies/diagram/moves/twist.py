@@ -258,8 +258,12 @@ def gate_arcs(edges: Sequence[int], faces: Sequence[int], directions: Sequence[i
     return arcs
 
 
-def _gate_walk(diagram: Diagram, edges: Sequence[int], start: int) -> tuple[list[int], list[int]] | str:
+def _gate_walk(diagram: Diagram, edges: Sequence[int], start: int,
+               simple: bool = True) -> tuple[list[int], list[int]] | str:
     """The faces and directions of the gate starting in face ``start``, or why there is none.
+
+    ``simple=False`` leaves out the check that the path does not cross itself (for a handle's
+    gate with turn-backs, which is checked straightened).
 
     ``start`` borders ``edges[0]``. Every edge has two different faces beside it (the drawn
     graph is 4-valent, hence has no bridge, and a crossingless circle separates the sphere),
@@ -280,7 +284,7 @@ def _gate_walk(diagram: Diagram, edges: Sequence[int], start: int) -> tuple[list
         # edge runs from the gate's right to its left: up
         directions.append(+1 if here == left else -1)
         faces.append(right if here == left else left)
-    problem = _gate_crosses_itself(diagram, edges, faces, directions)
+    problem = _gate_crosses_itself(diagram, edges, faces, directions) if simple else None
     return problem if problem is not None else (faces, directions)
 
 
@@ -294,7 +298,7 @@ def _gate_crosses_itself(diagram: Diagram, edges: Sequence[int], faces: list[int
     return f"the gate would cross itself in face {face}: its arcs there ({described}) cannot be drawn apart"
 
 
-def arcs_tangled(diagram: Diagram, arcs: dict[int, list[tuple[Side, Side]]]) -> int | None:
+def arcs_tangled(diagram: Diagram, arcs: dict[int, list[tuple]]) -> int | None:
     """The first face whose arcs cannot be drawn apart, or None when every face's can.
 
     Each arc runs inside its face from one side of the face's boundary to another (the arcs of
@@ -305,6 +309,10 @@ def arcs_tangled(diagram: Diagram, arcs: dict[int, list[tuple[Side, Side]]]) -> 
     boundary behind. Separate parts can then be nested in any face of one another, as the face's
     region allows.
 
+    An end is a :class:`Side`, or (Side, rank) where several ends lie on one edge: the ranks
+    order them along the edge (so a face beside it meets them in one order, the face on its other
+    side in the other).
+
     >>> from movies.diagram.constructors import unlink
     >>> arcs_tangled(unlink(2), {2: [(Side(1, "R"), Side(2, "R"))]}) is None
     True
@@ -313,10 +321,10 @@ def arcs_tangled(diagram: Diagram, arcs: dict[int, list[tuple[Side, Side]]]) -> 
         if len(pairs) < 2:
             continue  # one arc always fits
         partner: list[int] = []  # dart -> the other end of its edge
-        point: list[Side] = []  # dart -> the end it sits at
-        arc_dart: dict[Side, int] = {}
+        point: list = []  # dart -> the end it sits at
+        arc_dart: dict = {}
 
-        def edge(a: Side, b: Side) -> tuple[int, int]:
+        def edge(a, b) -> tuple[int, int]:
             first, second = len(partner), len(partner) + 1
             partner.extend((second, first))
             point.extend((a, b))
@@ -324,30 +332,35 @@ def arcs_tangled(diagram: Diagram, arcs: dict[int, list[tuple[Side, Side]]]) -> 
 
         for a, b in pairs:
             arc_dart[a], arc_dart[b] = edge(a, b)
-        ahead: dict[Side, int] = {}
-        behind: dict[Side, int] = {}
+        on_side: dict[Side, list] = {}
+        for end in arc_dart:
+            on_side.setdefault(end if isinstance(end, Side) else end[0], []).append(end)
+        for side, ends in on_side.items():  # a face runs along an edge's left side one way, its right the other
+            ends.sort(key=lambda end: 0 if isinstance(end, Side) else end[1] if side.hand == "L" else -end[1])
+        ahead: dict = {}
+        behind: dict = {}
         for cycle in diagram.faces[face]:
-            marked = [side for side in cycle if side in arc_dart]
-            for j, side in enumerate(marked):
+            marked = [end for side in cycle for end in on_side.get(side, ())]
+            for j, end in enumerate(marked):
                 following = marked[(j + 1) % len(marked)]
-                ahead[side], behind[following] = edge(side, following)
+                ahead[end], behind[following] = edge(end, following)
         turn = [0] * len(partner)  # dart -> the next dart counterclockwise around its end
-        for side, dart in arc_dart.items():
-            turn[ahead[side]], turn[dart], turn[behind[side]] = dart, behind[side], ahead[side]
-        root = {side: side for side in arc_dart}
+        for end, dart in arc_dart.items():
+            turn[ahead[end]], turn[dart], turn[behind[end]] = dart, behind[end], ahead[end]
+        root = {end: end for end in arc_dart}
 
-        def find(side: Side) -> Side:
-            while root[side] != side:
-                side = root[side]
-            return side
+        def find(end):
+            while root[end] != end:
+                end = root[end]
+            return end
 
         for dart in range(0, len(partner), 2):
             a, b = find(point[dart]), find(point[dart + 1])
             if a != b:
-                root[max(a, b)] = min(a, b)
-        euler = {find(side): 0 for side in arc_dart}
-        for side in arc_dart:
-            euler[find(side)] += 1  # vertices
+                root[max(a, b, key=_rank)] = min(a, b, key=_rank)
+        euler = {find(end): 0 for end in arc_dart}
+        for end in arc_dart:
+            euler[find(end)] += 1  # vertices
         for dart in range(0, len(partner), 2):
             euler[find(point[dart])] -= 1  # edges
         for orbit in orbits({dart: turn[partner[dart]] for dart in range(len(partner))}):
@@ -355,3 +368,8 @@ def arcs_tangled(diagram: Diagram, arcs: dict[int, list[tuple[Side, Side]]]) -> 
         if any(value != 2 for value in euler.values()):
             return face
     return None
+
+
+def _rank(end) -> tuple:
+    """A total order on ends (a Side, or a Side with a rank), for choosing union-find roots."""
+    return (end, -1) if isinstance(end, Side) else (end[0], end[1])

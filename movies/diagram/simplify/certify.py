@@ -272,7 +272,7 @@ def certify_within(first: Diagram, second: Diagram, meter: Meter, lift: int = 1)
 
 
 def simplify(diagram: Diagram, target: object = "fewest", budget: Budget | int | None = None,
-             lift: int = 1) -> SimplifyResult:
+             lift: int = 1, carry=None, extra=None) -> SimplifyResult:
     """Simplify ``diagram`` toward ``target``: a crossing count (``"fewest"``, ``"crossingless"``,
     an int) or a :class:`Diagram` to reach up to isotopy of the sphere (or else up to reflection;
     the result's ``comparison`` says which).
@@ -286,7 +286,9 @@ def simplify(diagram: Diagram, target: object = "fewest", budget: Budget | int |
     (True, 'sphere', 3)
     """
     if not isinstance(target, Diagram):
-        return simplify_by_count(diagram, target, budget, lift)
+        return simplify_by_count(diagram, target, budget, lift, carry, extra)
+    if carry is not None:
+        raise DiagramError("a search toward a diagram carries nothing along its moves")
     meter = Meter(Budget.of(budget))
     certificate = certify_within(diagram, target, meter, lift)
     if certificate is None:

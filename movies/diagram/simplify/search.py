@@ -104,6 +104,8 @@ class Step:
 
     record: MoveRecord
     diagram: Diagram
+    #: what a search that carries something along the moves (``carry``) has after this one
+    extra: object = None
 
 
 def undoable(before: Diagram, record: MoveRecord, after: Diagram) -> bool:
@@ -189,7 +191,7 @@ def child_key(diagram: Diagram, record: MoveRecord) -> tuple[int, int]:
     return (n, _corner_gap(diagram, record) if record.kind == "R2+" else 0)
 
 
-def _greedy(diagram: Diagram, meter: Meter, reversible: bool) -> list[Step]:
+def _greedy(diagram: Diagram, meter: Meter, reversible: bool, carry=None, extra=None) -> list[Step]:
     path: list[Step] = []
     while True:
         for record in candidates(diagram, _REMOVALS):
@@ -198,18 +200,24 @@ def _greedy(diagram: Diagram, meter: Meter, reversible: bool) -> list[Step]:
             after = apply(record, diagram)
             if reversible and not undoable(diagram, record, after):
                 continue
-            path.append(Step(record, after))
+            if carry is not None:
+                try:
+                    extra = carry(extra, diagram, record, after)
+                except MoveError:
+                    continue
+            path.append(Step(record, after, extra))
             diagram = after
             break
         else:
             return path
 
 
-def _improve(diagram: Diagram, meter: Meter, lift: int, reversible: bool) -> list[Step] | None:
+def _improve(diagram: Diagram, meter: Meter, lift: int, reversible: bool, carry=None,
+             extra=None) -> list[Step] | None:
     """A path to a diagram with fewer crossings, by best-first search; None if none is found."""
     floor = diagram.crossing_count()
     cap = floor + 2 * lift
-    nodes: list[tuple[Diagram, int, Step | None]] = [(diagram, -1, None)]
+    nodes: list[tuple[Diagram, int, Step | None]] = [(diagram, -1, Step(None, diagram, extra))]
     seen = {canonical_form(diagram)}
     heap: list[tuple[int, int, int, int, int, int, MoveRecord]] = []
     counter = 0
@@ -238,7 +246,13 @@ def _improve(diagram: Diagram, meter: Meter, lift: int, reversible: bool) -> lis
             continue
         if reversible and not undoable(before, record, after):
             continue
-        step = Step(record, after)
+        carried = None
+        if carry is not None:
+            try:
+                carried = carry(nodes[parent][2].extra, before, record, after)
+            except MoveError:
+                continue
+        step = Step(record, after, carried)
         if after.crossing_count() < floor:
             path = [step]
             while parent > 0:
@@ -255,13 +269,16 @@ def _improve(diagram: Diagram, meter: Meter, lift: int, reversible: bool) -> lis
     return None
 
 
-def descend(diagram: Diagram, goal, meter: Meter, lift: int = 1, reversible: bool = False) -> tuple[list[Step], str]:
+def descend(diagram: Diagram, goal, meter: Meter, lift: int = 1, reversible: bool = False,
+            carry=None, extra=None) -> tuple[list[Step], str]:
     """Greedy removals, then searches that unlock more, until ``goal(diagram)`` holds.
 
     Parameters: the start; ``goal``, a function of a diagram; a :class:`Meter`; ``lift``, how
     many R2 additions above a stuck crossing count a search may make; ``reversible``: take
-    only moves that one move function call can undo (:func:`undoable`). Returns the steps
-    and why it stopped (``"goal"``, ``"exhausted"``, ``"moves"``, ``"seconds"``).
+    only moves that one move function call can undo (:func:`undoable`); ``carry(extra, before,
+    record, after)``: what is carried along a move (``extra`` at the start), raising
+    :class:`~movies.errors.MoveError` for a move that may not be made (a movie's handles).
+    Returns the steps and why it stopped (``"goal"``, ``"exhausted"``, ``"moves"``, ``"seconds"``).
 
     >>> from movies.diagram.constructors import unknot
     >>> steps, why = descend(unknot(), lambda d: True, Meter(Budget()))
@@ -271,13 +288,13 @@ def descend(diagram: Diagram, goal, meter: Meter, lift: int = 1, reversible: boo
     path: list[Step] = []
     current = diagram
     while True:
-        path += _greedy(current, meter, reversible)
+        path += _greedy(current, meter, reversible, carry, path[-1].extra if path else extra)
         current = path[-1].diagram if path else diagram
         if goal(current):
             return path, "goal"
         if meter.stopped:
             return path, meter.stopped
-        found = _improve(current, meter, lift, reversible)
+        found = _improve(current, meter, lift, reversible, carry, path[-1].extra if path else extra)
         if found is None:
             return path, meter.stopped or "exhausted"
         path += found
@@ -295,14 +312,15 @@ def _goal(target):
 
 
 def simplify(diagram: Diagram, target: object = "fewest", budget: Budget | int | None = None,
-             lift: int = 1) -> SimplifyResult:
+             lift: int = 1, carry=None, extra=None) -> SimplifyResult:
     """Simplify ``diagram`` by Reidemeister moves toward a crossing count, recording every move.
 
     Parameters: the diagram; ``target``: ``"fewest"`` (as few crossings as the search finds),
     ``"crossingless"`` or an int n (at most n crossings); a :class:`Diagram` target is for
     :func:`movies.diagram.simplify.certify.simplify`, which also takes these;
     ``budget``: a :class:`Budget` or a number of moves (default ``Budget()``, a few seconds);
-    ``lift``: R2 additions a search may stack above a stuck crossing count. Returns a
+    ``lift``: R2 additions a search may stack above a stuck crossing count; ``carry`` and
+    ``extra``: what is carried along the moves, as for :func:`descend`. Returns a
     :class:`SimplifyResult`; running out of budget gives ``reached=False``, never an error.
 
     >>> from movies.diagram.constructors import unknot, from_braid
@@ -317,7 +335,7 @@ def simplify(diagram: Diagram, target: object = "fewest", budget: Budget | int |
         raise DiagramError("simplify toward a diagram with movies.diagram.simplify.simplify (or certify_isotopy)")
     goal = _goal(target)
     meter = Meter(budget)
-    steps, stopped = descend(diagram, goal, meter, lift)
+    steps, stopped = descend(diagram, goal, meter, lift, carry=carry, extra=extra)
     end = steps[-1].diagram if steps else diagram
     reached = stopped == "goal" or (target == "fewest" and stopped == "exhausted")
     return SimplifyResult(diagram, [s.record for s in steps], end, reached, meter.used, stopped, target, None,
