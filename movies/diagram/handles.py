@@ -147,9 +147,9 @@ def handle_gate_path(diagram: Diagram, edges: Sequence[int],
     """
     edges = list(edges)
     straight = straightened(edges)
-    if len(straight) == len(edges):
-        return gate_path(diagram, edges, start_face)
     repeated = sorted({edge for edge in straight if straight.count(edge) > 1})
+    if not repeated and len(straight) == len(edges):
+        return gate_path(diagram, edges, start_face)
     if repeated:
         raise MoveError(f"the gate crosses edge {repeated[0]} more than once, and not straight back (edges "
                         f"{edges}); a strand crosses a gate twice only by turning straight back, as in "

@@ -278,16 +278,20 @@ def _gate(diagram: Diagram, gate, index: int, drawn: Strands, canvas: _Canvas, s
     def nearest(candidates, targets):
         return min(candidates, key=lambda p: min(math.hypot(p[0] - q[0], p[1] - q[1]) for q in targets))
 
+    reach = stroke * 9
     chosen = []
     for position, edge in enumerate(gate.edges):
         if position == 0:
             chosen.append(nearest(inner(edge), inner(gate.edges[1])) if len(gate.edges) > 1
                           else _middle(lines[edge])[0])
+        elif edge == gate.edges[position - 1]:  # a turn-back: cross the edge again a little further on
+            px, py = chosen[-1]
+            away = [p for p in inner(edge) if math.hypot(p[0] - px, p[1] - py) >= 3 * reach]
+            chosen.append(nearest(away or inner(edge), [chosen[-1]]))
         else:
             chosen.append(nearest(inner(edge), [chosen[-1]]))
     here = diagram.side_face[Side(gate.edges[0], gate.hand)]
     points = []
-    reach = stroke * 9
     for position, (edge, (mx, my)) in enumerate(zip(gate.edges, chosen)):
         line = lines[edge]
         at = min(range(len(line) - 1), key=lambda i: math.hypot(line[i][0] - mx, line[i][1] - my))
@@ -299,7 +303,11 @@ def _gate(diagram: Diagram, gate, index: int, drawn: Strands, canvas: _Canvas, s
         nx, ny = (ty, -tx) if here == left else (-ty, tx)
         if position == 0:
             points.append((mx + reach * nx, my + reach * ny))
+        if position > 0 and edge == gate.edges[position - 1]:  # the turn-back bulges into the face between
+            points.append((mx + reach * nx, my + reach * ny))
         points.append((mx, my))
+        if position + 1 < len(gate.edges) and gate.edges[position + 1] == edge:
+            points.append((mx - reach * nx, my - reach * ny))
         here = right if here == left else left
         if position == len(gate.edges) - 1:
             points.append((mx - reach * nx, my - reach * ny))

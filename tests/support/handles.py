@@ -5,7 +5,10 @@ from __future__ import annotations
 import statistics
 import time
 
-from movies.diagram.handles import carried, handle_diagram, keep_off, pieces, swept
+from movies.checker import search
+from movies.checker.ribbon import band_candidates
+from movies.diagram.handles import carried, handle_diagram, keep_off, pieces, swept, twisted
+from movies.diagram.isotopy import same_on_sphere
 from movies.diagram.moves.twist import gate_path
 from movies.diagram.steps import MoveRecord, perform
 from movies.errors import MoveError
@@ -89,3 +92,30 @@ def median_time(work, rounds: int):
         value = work()
         times.append(time.perf_counter() - started)
     return statistics.median(times), value
+
+
+def approximation(link, frame, k):
+    """L(k) of a frame with handles, or the frame itself once no handle has a strand through it."""
+    return twisted(link, k) if link is not None else frame
+
+
+def approximations_related(kind, record, before, after, k, budget=10.0):
+    """Whether L(k) after a step comes from L(k) before it by a step of the same kind, proved by
+    moves: the same record (the diagrams equal on the sphere), or else, for a band, some band
+    across one face followed by Reidemeister moves the search certifies, and for a Reidemeister
+    move, slide, pull-back or simplify, an isotopy the search certifies.
+
+    ``before`` and ``after`` are (handles or None, frame)."""
+    a, b = approximation(*before, k), approximation(*after, k)
+    if record is not None:
+        try:
+            if same_on_sphere(perform(record, a).diagram, b):
+                return True
+        except MoveError:
+            pass
+    if kind == "band":
+        return any(search.certify(perform(band, a).diagram, b, budget).certified
+                   for band in band_candidates(a) if perform(band, a).diagram.component_count() == b.component_count())
+    if kind in ("birth", "death"):
+        return False
+    return search.certify(a, b, budget).certified
