@@ -35,6 +35,10 @@ EXPECTED = {
     "trefoil-concordance-in-S1xS2": ("verified", 0, [(0, None, 1, 1)]),
     "mistake-two-disks-in-B2xS2": ("contradicted", 2, [(0, None, 1, 0), (0, None, 1, 0)]),
     "6_1-ribbon-along-a-path": ("verified", 1, [(0, None, 1, 0)]),
+    "annulus-of-two-fibers-in-S1xB3": ("verified", 0, [(0, None, 2, 0)]),
+    "annulus-of-two-fibers-from-nothing": ("verified", 0, [(0, None, 0, 2)]),
+    "square-knot-through-a-handle-disk-in-S1xB3": ("verified", 1, [(0, None, 1, 0)]),
+    "6_1-through-a-handle-disk-in-B2xS2": ("verified", 1, [(0, None, 1, 0)]),
 }
 
 

@@ -204,22 +204,27 @@ def _sum_name(manifold: str, r: int) -> str:
 
 
 def handle_place(handles: int, end_empty: bool, lives: str | None, caps: tuple[tuple[int, int], ...],
-                 boundary_class: tuple[int, ...]) -> HandlePlace:
+                 boundary_class: tuple[int, ...], start_empty: bool = False) -> HandlePlace:
     """Name the 4-manifold of a movie with ``handles`` handles.
 
-    A movie that keeps off the handles is a surface in M_r × I. When it ends empty that collar
-    lies in both boundary sums, so without a statement of its own the movie is a surface in
-    ♮ʳ S¹×B³ and in ♮ʳ B²×S²; fiber caps pass through the 2-handles, so only ♮ʳ B²×S².
+    A movie that keeps off the handles is a surface in M_r × I. When it ends empty (or starts
+    empty) that collar lies in both boundary sums, so without a statement of its own the movie
+    is a surface in ♮ʳ S¹×B³ and in ♮ʳ B²×S², bounded by the other end; fiber caps pass through
+    the 2-handles, so only ♮ʳ B²×S². A movie from empty to empty is a closed surface in the product.
 
     >>> handle_place(1, True, None, (), (0,)).sentence()
     'in S^1 x B^3 and in B^2 x S^2, bounded by the start'
+    >>> handle_place(1, False, None, (), (0,), start_empty=True).sentence()
+    'in S^1 x B^3 and in B^2 x S^2, bounded by the end'
     >>> handle_place(2, False, None, (), (0, 0)).name
     '#^2 S^1 x S^2 x I'
     """
     product = ("S^1 x S^2" if handles == 1 else f"#^{handles} S^1 x S^2") + " x I"
-    if not end_empty or lives == "MxI":
+    if end_empty and start_empty:
+        return HandlePlace(product, "closed", handles, (), caps, boundary_class)
+    if not (end_empty or start_empty) or lives == "MxI":
         return HandlePlace(product, "from the start to the end", handles, (), caps, boundary_class)
-    reading = "bounded by the start"
+    reading = "bounded by the start" if end_empty else "bounded by the end"
     if any(up or down for up, down in caps) or lives == "B2xS2":
         return HandlePlace(_sum_name(B2XS2, handles), reading, handles, (), caps, boundary_class)
     if lives == "S1xB3":
@@ -250,7 +255,7 @@ def movie_bounds(start: HandleDiagram, end, euler: int, meets_start: bool, meets
     from movies.bounds.inequalities import cobordism_bounds
 
     def s_of(link, k) -> tuple[dict, dict]:
-        if not isinstance(link, HandleDiagram):  # the empty diagram
+        if not isinstance(link, HandleDiagram) or link.diagram.is_empty():  # the empty link
             return {f: 1 for f in fields}, {f: 1 for f in fields}
         diagram = twisted(link, k)
         return link_s_values(diagram, fields), link_s_values(mirror(diagram), fields)

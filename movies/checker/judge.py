@@ -125,19 +125,19 @@ class _Judging:
             report.notes.append("no surface: the movie stops at an invalid step")
             return report
         lives = result.movie.lives
-        if lives in ("S1xB3", "B2xS2") and not result.frames[-1].is_empty():
+        if lives in ("S1xB3", "B2xS2") and not (result.frames[-1].is_empty() or result.frames[0].is_empty()):
             last = result.movie.statements[-1] if result.movie.statements else result.movie.start_statement
             result.findings.append(Finding("false", None, last.line, last.column,
                                            f"the movie says its surface lives in the boundary sum of "
-                                           f"{MANIFOLDS[lives]}, but it does not end empty", ""))
+                                           f"{MANIFOLDS[lives]}, but it neither starts nor ends empty", ""))
         cut = result.caps[0][0] if result.caps else len(result.transitions)
         part = surface_of(sorted(result.movie.start.components), result.transitions[:cut])
-        end = result.handle_frames[cut] if result.handle_frames[cut] is not None else result.frames[cut]
+        end = result.handle_frames[cut]
         if not part.orientable or not part.oriented_by_start:
             report.notes.append("the surface is not oriented compatibly with the start, so the s-inequalities do not "
                                 "apply")
             return report
-        if part.end_reversed and end is not None and hasattr(end, "gates"):
+        if part.end_reversed:
             from movies.diagram.constructors import reverse
             from movies.diagram.handles import regated
 

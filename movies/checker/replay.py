@@ -24,7 +24,7 @@ from movies.checker import search
 from movies.checker.distinguish import first_difference
 from movies.checker.judge import Expectation, judge
 from movies.checker.result import REFUTED, CheckResult, Finding, StepRecord
-from movies.diagram.handles import (HandleDiagram, capped, carried, fiber_of, keep_off, pieces, pulled, slid, swept,
+from movies.diagram.handles import (HandleDiagram, capped, carried, fiber_of, keep_off, pieces, pulled, pushed, slid, swept,
                                    slid_past_strand)
 from movies.diagram.model import Diagram
 from movies.diagram.steps import MoveRecord, Places, Transition, growth, identity_transition, perform, places_named
@@ -91,7 +91,7 @@ class _Replay:
         try:
             if self.movie.handles is not None:
                 self.admit(statement)
-            elif statement.kind in ("cap", "slide", "pull"):
+            elif statement.kind in ("cap", "slide", "pull", "push"):
                 raise MoveError(f"'{statement.kind}' is a step of a movie with handles; this one starts without any "
                                 "(write the first frame as 'DIAGRAM with handle across ...')")
             if statement.kind == "simplify":
@@ -138,43 +138,42 @@ class _Replay:
                             "and away from the gates it would add blow-ups to the product")
         if kind == "isotopic":
             claimed = statement.args["handles"]
-            if claimed is None or self.handles is None or len(claimed.gates) != len(self.handles.gates):
+            if claimed is None or len(claimed.gates) != len(self.handles.gates):
                 raise MoveError("in a movie with handles an isotopy claim names the handles too ('isotopic to DIAGRAM "
                                 f"with handle across ...'), as many as the frame has ({len(self.movie.handles.gates)})")
-        if self.handles is None and kind in ("cap", "slide", "pull"):
-            raise MoveError("no handle has a strand through it any more: there is no fiber to cap, gate to slide or "
-                            "strand to pull back")
         if kind == "death":
             component = statement.record.component
             if component in self.frame.components:
                 edges = set(self.frame.components[component])
-                for index, gate in enumerate(self.handles.gates if self.handles else (), start=1):
+                for index, gate in enumerate(self.handles.gates, start=1):
                     if edges & set(gate.edges):
                         raise MoveError(f"component {component} passes through handle {index}, so it bounds no disk "
-                                        "there; a fiber is capped with 'cap fiber C' in the boundary sum of B^2 x S^2")
+                                        "there: pull it back off the handle first if it turns straight back, or, "
+                                        "as a fiber, cap it with 'cap fiber C' in the boundary sum of B^2 x S^2")
         if kind == "cap":
             if self.movie.lives != "B2xS2":
                 raise MoveError("a fiber cap is a disk through a 2-handle of the boundary sum of B^2 x S^2: say "
                                 "'in B2xS2' in the movie")
             fiber_of(self.handles, statement.record.component)
 
-    def carry(self, record: MoveRecord, outcome) -> HandleDiagram | None:
-        """The handles after a step that kept off them (or after a fiber cap)."""
-        if self.handles is None:
-            return None
+    def carry(self, record: MoveRecord, outcome) -> HandleDiagram:
+        """The handles after a step (a handle move, a fiber cap, or a step beside the handles)."""
         if record.kind == "slide":
             if record.crossing is not None:
                 return slid(self.handles, record.handle, record.crossing)
             return slid_past_strand(self.handles, record.handle, record.crossings)
         if record.kind == "pull":
             return pulled(self.handles, record.handle, record.edge)
+        if record.kind == "push":
+            return pushed(self.handles, record.handle, record.edge, record.face)
         if record.kind == "cap":
             handle, direction = fiber_of(self.handles, record.component)
             self.result.caps.append((self.number - 1, handle, direction))
             return capped(self.handles, record.component, outcome.diagram)
         keep_off(self.handles, record, f"'{record}'")
         return carried(self.handles, outcome.diagram, pieces(record, self.frame, outcome.diagram),
-                       outcome.reversed_edges, swept(record, self.frame, outcome.diagram))
+                       outcome.reversed_edges, swept(record, self.frame, outcome.diagram), band=record.kind == "band",
+                       leaving=record.leaving)
 
     def check_size(self, statement: Statement, record: MoveRecord, before: Diagram) -> None:
         """Refuse a move whose frame would be past the limits, before it is made."""

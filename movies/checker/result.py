@@ -116,7 +116,7 @@ class CheckResult:
             for _, handle, direction in self.caps:
                 caps[handle - 1][0 if direction > 0 else 1] += 1
             return handle_place(len(handles.gates), self.frames[-1].is_empty(), self.movie.lives,
-                                tuple(tuple(c) for c in caps), handles.homology_class())
+                                tuple(tuple(c) for c in caps), handles.homology_class(), self.frames[0].is_empty())
         return surface_ambient(self.movie.start, self.frames[-1], self.surface)
 
     @property

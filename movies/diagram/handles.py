@@ -41,7 +41,7 @@ from movies.diagram.moves.twist import _gate_walk, arcs_tangled, gate_arcs, gate
 from movies.errors import DiagramError, InternalError, MoveError
 
 __all__ = ["Gate", "HandleDiagram", "handle_diagram", "regated", "fibers", "closed_braid", "twisted",
-           "gate_faces", "keep_off", "pieces", "swept", "carried", "fiber_of", "capped", "slid", "slid_past_strand", "pulled", "straightened",
+           "gate_faces", "keep_off", "pieces", "swept", "carried", "fiber_of", "capped", "slid", "slid_past_strand", "pulled", "pushed", "straightened",
            "handle_gate_path"]
 
 #: how many orientations the search for null-homologous ones tries at most (2^components)
@@ -59,8 +59,10 @@ class Gate:
     edges: tuple[int, ...]
     hand: str
 
-    def start_face(self, diagram: Diagram) -> int:
-        return diagram.side_face[Side(self.edges[0], self.hand)]
+    def start_face(self, diagram: Diagram) -> int | None:
+        """The face the gate starts in (None for a handle no strand passes through: it can be
+        moved anywhere off the link, so it has no place in the diagram)."""
+        return diagram.side_face[Side(self.edges[0], self.hand)] if self.edges else None
 
     def straight(self) -> tuple[int, ...]:
         """The edges with every turn-back left out: what the handle's sphere meets after each is
@@ -237,6 +239,10 @@ def handle_diagram(diagram: Diagram, gates: Sequence[tuple[Sequence[int], int | 
     checked, paths = [], []
     for index, (edges, start_face) in enumerate(gates, start=1):
         edges = tuple(edges)
+        if not edges:  # a handle no strand passes through
+            checked.append(Gate((), "L"))
+            paths.append(((), [], ()))
+            continue
         try:
             faces, directions = handle_gate_path(diagram, edges, start_face)
         except MoveError as err:  # the notation names the start face with 'from face F'
@@ -339,7 +345,8 @@ def gate_faces(link: HandleDiagram) -> list[tuple[int, ...]]:
     >>> gate_faces(fibers(1, 1))
     [(1, 2, 3)]
     """
-    return [tuple(handle_gate_path(link.diagram, gate.edges, gate.start_face(link.diagram))[0]) for gate in link.gates]
+    return [tuple(handle_gate_path(link.diagram, gate.edges, gate.start_face(link.diagram))[0]) if gate.edges else ()
+            for gate in link.gates]
 
 
 def keep_off(link: HandleDiagram, record, what: str) -> None:
@@ -471,7 +478,8 @@ def swept(record, before: Diagram, after: Diagram) -> tuple[set[int], set[int], 
 
 
 def carried(link: HandleDiagram, diagram: Diagram, changed: dict[int, tuple[int, ...]] | None = None,
-            reversed_edges=(), sweeps: tuple[set[int], set[int], set[int]] = (set(), set(), set())) -> HandleDiagram:
+            reversed_edges=(), sweeps: tuple[set[int], set[int], set[int]] = (set(), set(), set()),
+            band: bool = False, leaving=None) -> HandleDiagram:
     """The same handles on the frame after a step, checked again.
 
     Each gate keeps the side of its first edge it starts on (sides, unlike face names, survive
@@ -483,6 +491,11 @@ def carried(link: HandleDiagram, diagram: Diagram, changed: dict[int, tuple[int,
     When none is, the step cut through the gate (a finger or a band across it, or a strand pulled
     through it), and the check fails with the handle named.
 
+    A ``band`` is different: on either side of a passage it makes a different surface, so when
+    the choices leave the gates crossing different edges the band is ambiguous, and ``leaving``
+    ((handle, edges) pairs, as the movie's ``leaving handle H across ...`` writes them) must say
+    which; otherwise the check fails, listing them.
+
     >>> from movies.diagram.moves import birth
     >>> from movies.diagram.constructors import unlink
     >>> link = handle_diagram(unlink(3), [([1, 2], None)])  # face 4 holds circle 3, off the gate
@@ -492,7 +505,7 @@ def carried(link: HandleDiagram, diagram: Diagram, changed: dict[int, tuple[int,
     changed = changed or {}
     ends_before, crossed_before, ends_after = sweeps
     for index, faces in enumerate(gate_faces(link), start=1):
-        if {faces[0], faces[-1]} & ends_before or set(faces) & crossed_before:
+        if faces and ({faces[0], faces[-1]} & ends_before or set(faces) & crossed_before):
             raise MoveError(f"the step sweeps across handle {index}: its gate runs through face "
                             f"{sorted(({faces[0], faces[-1]} & ends_before) | (set(faces) & crossed_before))[0]}, "
                             "where the move would pass a strand through the handle's circle")
@@ -500,12 +513,12 @@ def carried(link: HandleDiagram, diagram: Diagram, changed: dict[int, tuple[int,
     hands, choices = [], []
     for gate in link.gates:
         hand = gate.hand
-        if gate.edges[0] in flipped:
+        if gate.edges and gate.edges[0] in flipped:
             hand = "R" if hand == "L" else "L"
         hands.append(hand)
         choices.append([changed.get(edge, (edge,)) for edge in gate.edges])
     flat = [options for gate_choices in choices for options in gate_choices]
-    tried, problem = 0, None
+    tried, problem, found = 0, None, {}
     for picked in product(*flat):
         tried += 1
         if tried > MOST_CHOICES:
@@ -514,22 +527,46 @@ def carried(link: HandleDiagram, diagram: Diagram, changed: dict[int, tuple[int,
         for gate, hand in zip(link.gates, hands):
             edges = tuple(picked[at:at + len(gate.edges)])
             at += len(gate.edges)
-            starts.append((edges, diagram.side_face.get(Side(edges[0], hand))))
-        if any(face is None for _, face in starts):
+            starts.append((edges, diagram.side_face.get(Side(edges[0], hand)) if edges else None))
+        if any(edges and face is None for edges, face in starts):
             continue
         try:
             result = handle_diagram(diagram, starts)
         except MoveError as err:
             problem = problem or err
             continue
-        closed = [face for faces in gate_faces(result) for face in (faces[0], faces[-1]) if face in ends_after]
+        closed = [face for faces in gate_faces(result) if faces for face in (faces[0], faces[-1]) if face in ends_after]
         if closed:
             problem = problem or MoveError(f"a kink or finger would close around the end of a gate in face {closed[0]}")
             continue
         if any(sweeps) and result.directions != link.directions:  # a Reidemeister move keeps every passage
             raise InternalError("a Reidemeister move changed how the strands pass through a handle")
-        return result
-    raise MoveError(f"the step cuts through a handle's gate: {problem or 'no way to keep the gates'}")
+        if not (band or leaving):
+            return result
+        found.setdefault(tuple(gate.edges for gate in result.gates), result)
+    if not found:
+        raise MoveError(f"the step cuts through a handle's gate: {problem or 'no way to keep the gates'}")
+    if leaving:
+        wanted = dict(leaving)
+        if any(not 1 <= handle <= len(link.gates) for handle in wanted):
+            raise MoveError(f"'leaving' names a handle that is not there (handles 1 to {len(link.gates)})")
+        fits = [result for gates, result in found.items()
+                if all(gates[handle - 1] == tuple(edges) for handle, edges in wanted.items())]
+        if not fits:
+            raise MoveError(f"after the band the gates cannot cross what 'leaving' says; they can: "
+                            f"{_ways(found)}")
+        return fits[0]
+    if len(found) > 1:
+        raise MoveError("the band can run on either side of where a strand passes through a handle, and the two "
+                        f"make different surfaces; say which with 'leaving ...': {_ways(found)}")
+    return next(iter(found.values()))
+
+
+def _ways(found: dict) -> str:
+    """The choices of gates after a band, as the movie writes them."""
+    return "; or ".join(" and ".join(f"handle {index} across {' '.join(map(str, edges))}"
+                                     for index, edges in enumerate(gates, start=1) if edges)
+                        for gates in found)
 
 
 #: how many ways of placing the passages on the pieces of changed edges :func:`carried` tries
@@ -561,11 +598,11 @@ def fiber_of(link: HandleDiagram, component: int) -> tuple[int, int]:
     return index, direction
 
 
-def capped(link: HandleDiagram, component: int, diagram: Diagram) -> HandleDiagram | None:
+def capped(link: HandleDiagram, component: int, diagram: Diagram) -> HandleDiagram:
     """The handles after the fiber ``component`` is capped off (``diagram`` is the frame without it).
 
-    Its gate no longer crosses that edge; a gate left with no strands is dropped, and None is
-    returned when no gate has strands left.
+    Its gate no longer crosses that edge (a handle keeps its number when no strand is left
+    through it).
 
     >>> from movies.diagram.moves import death
     >>> link = fibers(1, 1)
@@ -577,10 +614,11 @@ def capped(link: HandleDiagram, component: int, diagram: Diagram) -> HandleDiagr
     kept = []
     for number, gate in enumerate(link.gates, start=1):
         if number != index:
-            kept.append((gate.edges, None, Side(gate.edges[0], gate.hand)))
+            kept.append((gate.edges, None, Side(gate.edges[0], gate.hand) if gate.edges else None))
             continue
         rest = tuple(e for e in gate.edges if e != edge)
         if not rest:
+            kept.append(((), None, None))
             continue
         if gate.edges[0] != edge:
             kept.append((rest, None, Side(rest[0], gate.hand)))
@@ -589,20 +627,18 @@ def capped(link: HandleDiagram, component: int, diagram: Diagram) -> HandleDiagr
         path = handle_gate_path(link.diagram, gate.edges, gate.start_face(link.diagram))[0]
         left, _ = link.diagram.faces_beside(rest[0])
         kept.append((rest, None, Side(rest[0], "L" if path[1] == left else "R")))
-    if not kept:
-        return None
-    return handle_diagram(diagram, [(edges, diagram.side_face[side]) for edges, _, side in kept])
+    return handle_diagram(diagram, [(edges, diagram.side_face[side] if side else None) for edges, _, side in kept])
 
 
-def pulled(link: HandleDiagram, handle: int, edge: int) -> HandleDiagram | None:
+def pulled(link: HandleDiagram, handle: int, edge: int) -> HandleDiagram:
     """The handles after the strand on ``edge``, which turns straight back through gate
     ``handle``, is pulled back off it.
 
     Between its two passages the edge has no crossing and the gate crosses nothing else, so the
     arc they bound with the gate can be lifted over the diagram and pushed back through the
     handle's disk: an isotopy in the complement of the handle's circle, so every L(k) keeps its
-    link type. The frame stays; the gate loses the two passages (a gate left with no strands is
-    dropped, and None is returned when no gate has strands left). Raises
+    link type. The frame stays; the gate loses the two passages (the handle keeps its number when
+    no strand is left through it). Raises
     :class:`~movies.errors.MoveError` saying why the edge does not turn back through that gate.
 
     >>> from movies.language.spec import parse_handle_diagram
@@ -625,9 +661,52 @@ def pulled(link: HandleDiagram, handle: int, edge: int) -> HandleDiagram | None:
     for number, other in enumerate(link.gates, start=1):
         if number != handle:
             kept.append((other.edges, other.start_face(diagram)))
-        elif rest:  # the gate still starts in the face it started in (beside its new first edge)
-            kept.append((rest, faces[0]))
-    return handle_diagram(diagram, kept) if kept else None
+        else:  # the gate still starts in the face it started in (beside its new first edge)
+            kept.append((rest, faces[0] if rest else None))
+    return handle_diagram(diagram, kept)
+
+
+def pushed(link: HandleDiagram, handle: int, edge: int, face: int | None = None) -> HandleDiagram:
+    """The handles after a finger of the strand on ``edge`` is pushed through gate ``handle`` and
+    back: the gate crosses ``edge`` twice more, in a row (a turn-back, see :func:`pulled`).
+
+    The finger crosses the gate in ``face``, a face beside ``edge`` that the gate runs through (or,
+    for a handle no strand passes through yet, the face the gate is put in: the face on the
+    edge's left unless ``face`` says otherwise); where the gate runs through it more than once,
+    the first place that can be drawn is taken. An isotopy off the handle's circle: every L(k)
+    keeps its link type. Raises :class:`~movies.errors.MoveError` saying why it does not apply.
+
+    >>> from movies.language.spec import parse_handle_diagram
+    >>> pushed(parse_handle_diagram("unknot with handle"), 1, 1).gates
+    (Gate(edges=(1, 1), hand='L'),)
+    """
+    if not 1 <= handle <= len(link.gates):
+        raise MoveError(f"there is no handle {handle} (handles 1 to {len(link.gates)})")
+    diagram, gate = link.diagram, link.gates[handle - 1]
+    if edge not in diagram.edges():
+        raise MoveError(f"edge {edge} is not in the diagram (edges: {', '.join(map(str, diagram.edges()))})")
+    beside = [int(f) for f in diagram.faces_beside(edge)]
+    if face is not None and face not in beside:
+        raise MoveError(f"face {face} does not border edge {edge} (it lies between faces {beside[0]} and {beside[1]})")
+    if gate.edges:
+        faces = handle_gate_path(diagram, gate.edges, gate.start_face(diagram))[0]
+        places = [(i, faces[0]) for i, f in enumerate(faces) if f in beside and (face is None or f == face)]
+    else:
+        places = [(0, face if face is not None else diagram.side_face[Side(edge, "L")])]
+    if not places:
+        raise MoveError(f"the gate of handle {handle} runs through no face beside edge {edge}"
+                        + (f" (faces {beside[0]} and {beside[1]})" if face is None else f" in face {face}")
+                        + ": a finger is pushed through a handle where its gate passes by")
+    problem = None
+    for at, start in places:
+        edges = gate.edges[:at] + (edge, edge) + gate.edges[at:]  # the gate still starts in its face
+        kept = [(other.edges, other.start_face(diagram)) if number != handle else (edges, start)
+                for number, other in enumerate(link.gates, start=1)]
+        try:
+            return handle_diagram(diagram, kept)
+        except MoveError as err:
+            problem = problem or err
+    raise MoveError(f"edge {edge} cannot be pushed through handle {handle}: {problem}")
 
 
 def slid(link: HandleDiagram, handle: int, crossing: int) -> HandleDiagram:
@@ -649,6 +728,8 @@ def slid(link: HandleDiagram, handle: int, crossing: int) -> HandleDiagram:
     if not 1 <= handle <= len(link.gates):
         raise MoveError(f"there is no handle {handle} (handles 1 to {len(link.gates)})")
     diagram, gate = link.diagram, link.gates[handle - 1]
+    if not gate.edges:
+        raise MoveError(f"no strand passes through handle {handle}: its gate has nothing to slide along")
     if crossing not in diagram.crossings:
         raise MoveError(f"crossing {crossing} is not in the diagram (crossings: {sorted(diagram.crossings)})")
     faces = handle_gate_path(diagram, gate.edges, gate.start_face(diagram))[0]
@@ -708,6 +789,8 @@ def slid_past_strand(link: HandleDiagram, handle: int, crossings: Sequence[int])
     diagram, gate = link.diagram, link.gates[handle - 1]
     edges, crossings = gate.edges, tuple(crossings)
     refuse = f"handle {handle} cannot slide past the strand through crossings {', '.join(map(str, crossings))}: "
+    if not edges:
+        raise MoveError(refuse + "no strand passes through it")
     if gate.straight() != edges:
         raise MoveError(refuse + "a strand turns back through its gate; pull it back first")
     if len(crossings) != len(edges):

@@ -50,22 +50,23 @@ FIELDS = {
     "R2+": ("over", "under", "face", "names"),
     "R2-": ("face",),
     "R3": ("face", "names"),
-    "band": ("first", "second", "face", "names", "path", "twists"),
+    "band": ("first", "second", "face", "names", "path", "twists", "leaving"),
     "birth": ("face", "counterclockwise", "names"),
     "death": ("component",),
     "cap": ("component",),
     "slide": ("handle", "crossing", "crossings"),
     "pull": ("handle", "edge"),
+    "push": ("handle", "edge", "face"),
     "twist": ("edges", "turns", "start_face", "names"),
 }
 #: every kind of move step
 KINDS = tuple(FIELDS)
 #: fields a record may leave out
-_OPTIONAL = {"kink", "names", "start_face", "path", "twists", "crossings"} | {
-    "band:face", "birth:counterclockwise", "slide:crossing"}
+_OPTIONAL = {"kink", "names", "start_face", "path", "twists", "crossings", "leaving"} | {
+    "band:face", "birth:counterclockwise", "slide:crossing", "push:face"}
 _ALL = ("edge", "hand", "sign", "crossing", "kink", "over", "under", "face", "first", "second",
         "counterclockwise", "component", "edges", "turns", "start_face", "names", "path", "twists", "handle",
-        "crossings")
+        "crossings", "leaving")
 #: per kind, the fields it must have and the fields it must not
 _REQUIRED = {kind: tuple(name for name in fields if name not in _OPTIONAL and f"{kind}:{name}" not in _OPTIONAL)
              for kind, fields in FIELDS.items()}
@@ -85,7 +86,7 @@ class MoveRecord:
     >>> MoveRecord("R4", face=1)
     Traceback (most recent call last):
     ...
-    movies.errors.MoveError: a move is one of R1+, R1-, R2+, R2-, R3, band, birth, death, cap, slide, pull, twist, not 'R4'
+    movies.errors.MoveError: a move is one of R1+, R1-, R2+, R2-, R3, band, birth, death, cap, slide, pull, push, twist, not 'R4'
     """
 
     kind: str
@@ -113,6 +114,9 @@ class MoveRecord:
     handle: int | None = None
     #: where a strand crossing a handle's whole bundle crosses its strands, in the gate's order
     crossings: tuple[int, ...] | None = None
+    #: for a band in a movie with handles: the edges some gates cross afterwards, (handle, edges) each, where
+    #: the band could pass on either side of a strand's passage through a handle
+    leaving: tuple[tuple[int, tuple[int, ...]], ...] | None = None
 
     def __post_init__(self) -> None:
         kind = self.kind
@@ -167,6 +171,9 @@ class MoveRecord:
                     + "".join(f" {'over' if over else 'under'} {edge}" for edge, over in self.path or ())
                     + (f" twisted {self.twists:+d}" if self.twists else "")
                     + (f" in face {self.face}" if self.face is not None else ""))
+            if self.leaving:
+                return text + _names_text(self.names) + " leaving " + " and ".join(
+                    f"handle {handle} across {' '.join(map(str, edges))}" for handle, edges in self.leaving)
         elif k == "birth":
             text = f"birth{'' if self.counterclockwise else ' cw'} in face {self.face}"
         elif k == "death":
@@ -178,6 +185,9 @@ class MoveRecord:
                     else f"slide handle {self.handle} past crossings {' '.join(map(str, self.crossings))}")
         elif k == "pull":
             text = f"pull back edge {self.edge} through handle {self.handle}"
+        elif k == "push":
+            text = f"push edge {self.edge} through handle {self.handle}" + (
+                f" in face {self.face}" if self.face is not None else "")
         else:
             text = (f"twist {self.turns:+d} across {' '.join(map(str, self.edges))}"
                     + (f" from face {self.start_face}" if self.start_face is not None else ""))
@@ -270,6 +280,7 @@ _CALL: dict[str, Callable[[Diagram, MoveRecord], object]] = {
     "slide": lambda d, r: d if all(c in d.crossings for c in _slid_past(r)) else _no_crossing(d, _slid_past(r)),
     # pulling a strand back through a handle moves it off the handle's sphere: the frame stays
     "pull": lambda d, r: d if r.edge in d.edges() else _no_edge(d, r.edge),
+    "push": lambda d, r: d if r.edge in d.edges() else _no_edge(d, r.edge),
     "twist": lambda d, r: moves.twist(d, r.edges, r.turns, r.start_face, **_chosen(r)),
 }
 
@@ -349,6 +360,9 @@ def _outcome(record: MoveRecord, before: Diagram, result) -> Outcome:
     if kind == "pull":
         return Outcome(result, identity_transition(kind, sorted(before.components)), Places(edges=(record.edge,)),
                        f"edge {record.edge} is pulled back through handle {record.handle}")
+    if kind == "push":
+        return Outcome(result, identity_transition(kind, sorted(before.components)), Places(edges=(record.edge,)),
+                       f"a finger of edge {record.edge} is pushed through handle {record.handle} and back")
     if kind == "cap":
         return Outcome(result, Transition("cap", ended=(record.component,), deaths=1),
                        Places(edges=tuple(before.components[record.component])),

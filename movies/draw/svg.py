@@ -266,8 +266,8 @@ def _gate(diagram: Diagram, gate, index: int, drawn: Strands, canvas: _Canvas, s
     that corner; it starts a little inside the face beside its first edge and ends a little
     inside the face beyond its last, and runs straight between.
     """
-    if any(edge not in drawn.curves for edge in gate.edges):
-        return []
+    if not gate.edges or any(edge not in drawn.curves for edge in gate.edges):
+        return []  # a handle no strand passes through has no place in the drawing
     lines = {edge: [canvas(p) for p in sample(drawn.curves[edge])] for edge in gate.edges}
 
     def inner(edge):  # the middle part of an edge, away from its crossings

@@ -76,14 +76,14 @@ __all__ = ["Statement", "Movie", "MovieSyntaxError", "MovieInputError", "parse_m
 
 #: the words a statement can start with
 STATEMENT_WORDS = (
-    "title", "start", "band", "R1", "R2", "R3", "birth", "death", "cap", "slide", "pull", "twist", "simplify",
-    "isotopic",
+    "title", "start", "band", "R1", "R2", "R3", "birth", "death", "cap", "slide", "pull", "push", "twist",
+    "simplify", "isotopic",
     "expect", "surface", "budget", "in",
 )
 
 #: statements that change the frame
-MOVE_KINDS = ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "cap", "slide", "pull", "twist", "simplify",
-              "isotopic")
+MOVE_KINDS = ("band", "R1+", "R1-", "R2+", "R2-", "R3", "birth", "death", "cap", "slide", "pull", "push", "twist",
+              "simplify", "isotopic")
 #: the 4-manifolds a movie with handles may say its surface lives in (``in MANIFOLD``)
 MANIFOLDS = {"S1xB3": "S^1 x B^3", "B2xS2": "B^2 x S^2", "MxI": "M x I"}
 
@@ -339,9 +339,15 @@ class _Reader(Transformer):
     # ------------------------------------------------------------ moves
     @v_args(meta=True)
     def band(self, meta, c):
-        path = tuple(x for x in c[2:-3])
-        return self._move(meta, "band", first=self.number(c[0]), second=self.number(c[1]), face=c[-2], names=c[-1],
-                          path=path or None, twists=c[-3])
+        path = tuple(x for x in c[2:-4])
+        return self._move(meta, "band", first=self.number(c[0]), second=self.number(c[1]), face=c[-3], names=c[-2],
+                          path=path or None, twists=c[-4], leaving=c[-1])
+
+    def leaving(self, children) -> tuple[tuple[int, tuple[int, ...]], ...]:
+        return tuple(children)
+
+    def gate_after(self, children) -> tuple[int, tuple[int, ...]]:
+        return self.number(children[0]), tuple(self.number(token) for token in children[1:])
 
     def band_twists(self, children) -> int | None:
         value = self.number(children[0])
@@ -399,6 +405,10 @@ class _Reader(Transformer):
     @v_args(meta=True)
     def pull(self, meta, c):
         return self._move(meta, "pull", handle=self.number(c[1]), edge=self.number(c[0]))
+
+    @v_args(meta=True)
+    def push(self, meta, c):
+        return self._move(meta, "push", handle=self.number(c[1]), edge=self.number(c[0]), face=c[2])
 
     @v_args(meta=True)
     def lives(self, meta, c):

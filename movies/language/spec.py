@@ -278,7 +278,8 @@ def _bundles(node) -> list[int]:
     """How many strands pass through each handle of a diagram-with-handles node, read off the text."""
     try:
         if node.data == "with_handles":
-            return [len([t for t in h.children if isinstance(t, Token)]) - (h.children[-1] is not None)
+            return [0 if h.data == "free_handle" else
+                    len([t for t in h.children if isinstance(t, Token)]) - (h.children[-1] is not None)
                     for h in node.children[1:]]
         if node.data == "fibers":
             return [abs(int(node.children[0])) + abs(int(node.children[1]))]
@@ -614,6 +615,9 @@ class _Builder:
     def _with_handles(self, node, diagram: Diagram) -> HandleDiagram:
         gates = []
         for handle in node.children[1:]:
+            if handle.data == "free_handle":
+                gates.append(((), None))
+                continue
             *edges, face = handle.children
             gates.append(([self.number(edge) for edge in edges], None if face is None else self.number(face)))
         return handle_diagram(diagram, gates)

@@ -57,7 +57,7 @@ def test_the_declared_manifold_must_fit():
     with pytest.raises(Exception, match="says once where its surface lives"):
         parse_movie("start unlink(2) with handle across 1 2\nin S1xB3\nin B2xS2")
     result = check_movie(f"start {TREFOIL}\nin S1xB3\nR1 add 3 left +")
-    assert result.verdict == "contradicted" and "does not end empty" in result.findings[0].message
+    assert result.verdict == "contradicted" and "neither starts nor ends empty" in result.findings[0].message
 
 
 def test_the_balanced_fibers_bound_disks_in_b2xs2():
@@ -429,3 +429,46 @@ def test_random_steps_on_the_strands_through_a_handle_are_steps_between_the_appr
                                               (result.handle_frames[number + 1], result.frames[number + 1]), k,
                                               budget=5.0), (text, number, k)
     assert steps >= 30 and touched >= 8, (steps, touched)
+
+
+def test_a_movie_may_start_from_nothing_with_handles_declared():
+    start = "start empty with handle\nin S1xB3\nbirth in face 1\npush edge 1 through handle 1"
+    # the band across the finger could run on either side of the passages: the checker asks which
+    message = _invalid(f"{start}\nband 1 1 in face 2")
+    assert "say which with 'leaving ...'" in message and "handle 1 across 1 2" in message
+    assert "cannot cross what 'leaving' says" in _invalid(f"{start}\nband 1 1 in face 2 leaving handle 1 across 2 2 2")
+    result = check_movie(_example("annulus-of-two-fibers-from-nothing"))
+    assert result.verdict == "verified"
+    assert [h.gates[0].edges for h in result.handle_frames] == [(), (), (1, 1), (1, 2)]
+    data = as_json(result)["surface"]
+    assert (data["lives_in"], data["reading"]) == ("S^1 x B^3", "bounded by the end")
+    # the end is F(1, 1), one fiber each way: its class is 0 and each circle passes once
+    end = result.handle_frames[-1]
+    assert end.homology_class() == (0,) and sorted(end.directions[0]) == [-1, 1]
+    for number, statement in enumerate(result.movie.steps):
+        for k in (-1, 1):
+            assert approximations_related(statement.kind, statement.record,
+                                          (result.handle_frames[number], result.frames[number]),
+                                          (result.handle_frames[number + 1], result.frames[number + 1]), k)
+
+
+def test_pushing_a_finger_through_a_handle():
+    assert "does not border edge 1" in _invalid("start unknot with handle\npush edge 1 through handle 1 in face 5")
+    assert "runs through no face beside edge 3" in _invalid(
+        "start braid(3)[] with handle across 1 from face 1\npush edge 3 through handle 1")
+    # beside the gate's path: the new passages come in a row, and the class stays
+    result = check_movie("start unlink(2) with handle across 1 from face 1\npush edge 2 through handle 1")
+    assert result.verdict == "verified"
+    after = result.handle_frames[-1]
+    assert after.gates[0].edges in ((2, 2, 1), (1, 2, 2)) and after.homology_class() == (1,)
+
+
+def test_a_handle_keeps_its_number_when_no_strand_is_left_through_it():
+    start = "start unlink(3) with handle across 1 1 from face 1 and handle across 2 3"
+    result = check_movie(f"{start}\npull back edge 1 through handle 1\ndeath 1\npush edge 2 through handle 2")
+    assert result.verdict == "verified", [f.message for f in result.findings]
+    assert [len(h.gates) for h in result.handle_frames] == [2, 2, 2, 2]
+    assert result.handle_frames[-1].gates[0].edges == () and len(result.handle_frames[-1].gates[1].edges) == 4
+    assert "no strand passes through it" in _invalid(
+        "start pd[[1,5,2,4],[3,1,4,6],[5,3,6,2]] with handle across 4 from face 1 and handle\n"
+        "slide handle 2 past crossings 2")

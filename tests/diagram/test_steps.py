@@ -27,6 +27,7 @@ SAMPLES = {
     "cap": ("unlink(2) with handle across 1 2", ["in B2xS2"], "cap fiber 2"),
     "slide": ("braid(2)[1, 1] with handle across 1 3 from face 1", [], "slide handle 1 past crossing 1"),
     "pull": ("unlink(2) with handle across 1 2 2 from face 1", [], "pull back edge 2 through handle 1"),
+    "push": ("unknot with handle", [], "push edge 1 through handle 1 in face 2"),
     "twist": ("unlink(2)", [], "twist -1 across 1 2 from face 1"),
 }
 
@@ -57,7 +58,7 @@ def test_every_kind_is_read_performed_marked_and_written_back(kind):
     # performed, with the places it acts on in the frame before it
     outcome = perform(record, frame)
     # a slide or a pull moves a handle's gate, not the link: the frame stays
-    assert isinstance(outcome, Outcome) and (outcome.diagram != frame) == (kind not in ("slide", "pull"))
+    assert isinstance(outcome, Outcome) and (outcome.diagram != frame) == (kind not in ("slide", "pull", "push"))
     assert outcome.places.edges or outcome.places.faces or outcome.places.crossings
     # replayed by the checker through the same outcome
     checked = check_movie("\n".join([f"start {spec}", *before, line]), bounds=False)

@@ -70,7 +70,7 @@ def random_steps(link, rng, count, most_crossings=None, tries=20, on_gates=False
                 continue
             keep_off(frames[-1], record, "a random step")
             after = carried(frames[-1], outcome.diagram, pieces(record, d, outcome.diagram), outcome.reversed_edges,
-                            swept(record, d, outcome.diagram))
+                            swept(record, d, outcome.diagram), band=record.kind == "band")
         except MoveError:
             continue
         records.append(record)
@@ -113,9 +113,18 @@ def approximations_related(kind, record, before, after, k, budget=10.0):
                 return True
         except MoveError:
             pass
-    if kind == "band":
-        return any(search.certify(perform(band, a).diagram, b, budget).certified
-                   for band in band_candidates(a) if perform(band, a).diagram.component_count() == b.component_count())
+    if kind == "band":  # an untwisted band across one face first, then with half twists (a turn-back is drawn
+        # straightened in L(k), so the band across it carries the twists the handle put on it)
+        for twists in (0, 2, -2, 1, -1, 4, -4):
+            for band in band_candidates(a):
+                band = MoveRecord("band", first=band.first, second=band.second, face=band.face, twists=twists or None)
+                try:
+                    moved = perform(band, a).diagram
+                except MoveError:
+                    continue
+                if moved.component_count() == b.component_count() and search.certify(moved, b, budget).certified:
+                    return True
+        return False
     if kind in ("birth", "death"):
         return False
     return search.certify(a, b, budget).certified
