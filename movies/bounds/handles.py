@@ -34,6 +34,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass, field
 
+from movies.errors import EmptyDiagramError
 from movies.bounds.inequalities import Bound
 from movies.diagram.constructors import mirror
 from movies.diagram.handles import HandleDiagram, twisted
@@ -121,6 +122,9 @@ def surface_questions(link: HandleDiagram, genus: int = 0, fields=("Q", "F2"),
     >>> three.least_genus, three.bounds[0].statement
     (1, 'S^1 x B^3, k = 0: 1 - chi >= s(L(k))  [Q]')
     """
+    if link.diagram.is_empty():
+        raise EmptyDiagramError("the empty link bounds only closed surfaces, and these bounds are for surfaces whose "
+                                "every component meets the link")
     sequences = s_of_handles(link, fields, most=most)  # also refuses links that are not null-homologous
     components = link.diagram.component_count()
     euler = 2 - 2 * genus - components

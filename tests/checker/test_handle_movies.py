@@ -472,3 +472,12 @@ def test_a_handle_keeps_its_number_when_no_strand_is_left_through_it():
     assert "no strand passes through it" in _invalid(
         "start pd[[1,5,2,4],[3,1,4,6],[5,3,6,2]] with handle across 4 from face 1 and handle\n"
         "slide handle 2 past crossings 2")
+
+
+def test_movies_bounds_refuses_the_empty_link_with_handles(capsys):
+    # a sphere bounds the empty link in every 4-manifold: the s-inequalities, which are about surfaces whose every
+    # component meets the link, must not be read as forbidding it
+    from movies.cli.main import main
+
+    assert main(["bounds", "empty with handle"]) == 2
+    assert "the empty link bounds only closed surfaces" in capsys.readouterr().err
