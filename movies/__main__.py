@@ -2,4 +2,5 @@
 
 from movies.cli.main import main
 
-raise SystemExit(main())
+if __name__ == "__main__":  # a batch's worker processes import this module again, and must not run it
+    raise SystemExit(main())

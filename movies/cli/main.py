@@ -201,6 +201,48 @@ def build_parser() -> argparse.ArgumentParser:
     frm.add_argument("--png", metavar="OUT.png", help="also draw the frame, with every name, as a PNG file")
     _limit_option(frm)
     frm.set_defaults(run=_run_frames)
+    bat = commands.add_parser(
+        "batch",
+        help="run one task over many diagrams or movies, on Dask, into a results database",
+        description=("Run a task (the invariants, checking a movie, or a search) on every item of a table range, "
+                     "a file of diagrams or a folder of movies, on a local Dask cluster of worker processes (or on a "
+                     "running scheduler with --scheduler), each item under a time limit; every result goes into an "
+                     "SQLite file, and running the same command again resumes where it stopped. 'summary' and "
+                     "'export' read the file."),
+    )
+    actions = bat.add_subparsers(dest="action", metavar="ACTION", parser_class=_Parser)
+    run = actions.add_parser("run", help="run a batch (resumes: items already in the database are skipped)",
+                             description="Run a batch; items the database already holds for the same task, "
+                                         "options and program version are skipped.")
+    source = run.add_mutually_exclusive_group(required=True)
+    source.add_argument("--knots", metavar="RANGE", help="the knots of the table with this many crossings (7, 3-12)")
+    source.add_argument("--links", metavar="RANGE", help="the oriented links of the table with this many crossings")
+    source.add_argument("--diagrams", metavar="FILE", help="a text file of diagrams, one per line ('%%' comments)")
+    source.add_argument("--movies", metavar="FOLDER", help="a folder of .movie files")
+    run.add_argument("--task", required=True, choices=["invariants", "check", "find-ribbon", "find-surface"],
+                     help="what to compute for each item, as the command line does")
+    run.add_argument("--db", required=True, metavar="FILE.sqlite", help="the results database (created if missing)")
+    run.add_argument("--time-limit", metavar="SECONDS", default="60", help="per item (default 60)")
+    run.add_argument("--workers", metavar="N", help="worker processes of the local cluster (default: one per core)")
+    run.add_argument("--scheduler", metavar="ADDRESS", help="a running Dask scheduler (tcp://host:port) instead")
+    run.add_argument("--field", action="append", default=[], metavar="F", help="invariants: another field")
+    run.add_argument("--classical", action="store_true", help="invariants: no homology")
+    run.add_argument("--reduced", action="store_true", help="invariants: reduced Khovanov homology too")
+    run.add_argument("--bar-natan", action="store_true", help="invariants: Bar-Natan homology too")
+    run.add_argument("--budget", metavar="SECONDS", help="check and find: the search budget per item")
+    run.set_defaults(run=_run_batch)
+    summ = actions.add_parser("summary", help="counts by status, the slowest items, agreement with the tables")
+    summ.add_argument("db", metavar="FILE.sqlite")
+    summ.add_argument("--json", action="store_true", help="print one JSON object")
+    summ.set_defaults(run=_run_batch_summary)
+    exp = actions.add_parser("export", help="write every row to CSV or JSON lines")
+    exp.add_argument("db", metavar="FILE.sqlite")
+    kind = exp.add_mutually_exclusive_group(required=True)
+    kind.add_argument("--csv", metavar="FILE.csv")
+    kind.add_argument("--jsonl", metavar="FILE.jsonl")
+    exp.set_defaults(run=_run_batch_export)
+    for sub in (run, summ, exp):
+        _limit_option(sub)
     return parser
 
 
@@ -296,12 +338,13 @@ def _run_invariants(args: argparse.Namespace) -> int:
             if isinstance(read, HandleDiagram):
                 return _run_handles(args, args.spec or args.file, read, fields)
     label, diagram = diagram_from_arguments(args)
-    facts = classical_invariants(diagram)
-    if not args.classical and not diagram.is_empty():
-        from movies.homology.summary import homology_summary
+    if args.classical or diagram.is_empty():
+        facts = classical_invariants(diagram)
+    else:
+        from movies.homology.summary import invariants_facts
 
         with _progress("homology") as report:
-            facts.update(homology_summary(diagram, fields, args.reduced, args.bar_natan, progress=report))
+            facts = invariants_facts(diagram, fields, False, args.reduced, args.bar_natan, progress=report)
     if args.json:
         print(json.dumps(facts))
     else:
@@ -312,48 +355,13 @@ def _run_invariants(args: argparse.Namespace) -> int:
 def _run_handles(args: argparse.Namespace, label: str, link, fields: list[str]) -> int:
     """``movies invariants`` of a link in #ʳ S¹×S²: its class, s and Khovanov homology of its twisted
     approximations; with ``--classical``, ``--reduced`` or ``--bar-natan`` also every L(k) as a link in S³."""
-    from movies.diagram.handles import twisted
-    from movies.homology.approximations import (NotNullHomologousError, NotTwoDivisibleError, khovanov_of_handles,
-                                                s_of_handles)
-    from movies.invariants.summary import classical_invariants
+    from movies.homology.summary import handle_link_facts
     from movies.report.invariants import handles_text, invariants_text, khovanov_tables_text
 
-    twists = _number(args.twists, "--twists")
-    if twists < 1:
-        raise InputError(f"--twists is 1 or more, not {twists}")
-    facts: dict = {
-        "handles": len(link.gates), "class": list(link.homology_class()),
-        "null_homologous": link.null_homologous(), "two_divisible": link.two_divisible(),
-        "null_homologous_orientations": [list(o) for o in link.null_homologous_orientations()],
-        "s": None, "s_note": "", "khovanov": None, "khovanov_note": "",
-    }
-    ks = sorted(range(-twists, twists + 1), key=lambda k: (k < 0, abs(k)))
-    if args.classical:
-        facts["s_note"] = facts["khovanov_note"] = "not computed (--classical)"
-    else:
-        with _progress("approximations") as _:
-            try:
-                found = s_of_handles(link, fields, most=twists)
-                facts["s"] = {field: sequence.as_json() for field, sequence in found.items()}
-                ks = sorted(set().union(*(sequence.values for sequence in found.values())),
-                            key=lambda k: (k < 0, abs(k)))
-            except NotNullHomologousError as err:
-                facts["s_note"] = str(err)
-            try:
-                facts["khovanov"] = {"Q": [t.as_json() for t in khovanov_of_handles(link, sorted(ks), "Q")]}
-            except NotTwoDivisibleError as err:
-                facts["khovanov_note"] = str(err)
-    approximations = []
-    if args.classical or args.reduced or args.bar_natan:
-        for k in sorted(ks):
-            diagram = twisted(link, k)
-            entry = {"k": k, **classical_invariants(diagram)}
-            if not args.classical and not diagram.is_empty():
-                from movies.homology.summary import homology_summary
-
-                entry.update(homology_summary(diagram, fields, args.reduced, args.bar_natan))
-            approximations.append(entry)
-        facts["approximations"] = approximations
+    with _progress("approximations") as _:
+        facts = handle_link_facts(link, fields, args.classical, args.reduced, args.bar_natan,
+                                  _number(args.twists, "--twists"))
+    approximations = facts.get("approximations", [])
     if args.json:
         print(json.dumps(facts))
         return EXIT_OK
@@ -477,108 +485,58 @@ def _say_progress():
     return lambda line: print(line, file=sys.stderr, flush=True)
 
 
-def _find_link_ribbon(args: argparse.Namespace, link, budget: float) -> int:
-    """``movies find ribbon L`` for a link: disjoint ribbon disks, one for each component."""
-    from movies.bounds.verdicts import mirror_s_values, s_values
-    from movies.checker.ribbon import SearchResult, find_ribbon_disk
+def _run_find(args: argparse.Namespace) -> int:
+    """``movies find ribbon K`` and ``movies find surface K [--to K2]``: a surface found by a
+    search, checked as a movie, beside the lower bounds the invariants give."""
+    from movies.checker.find import find_for
 
-    n = link.component_count()
-    s = s_values(link)
-    mirror_s = mirror_s_values(link, s)
-    links = [row[j] for i, row in enumerate(link.linking_matrix()) for j in range(i + 1, n)]
-    # disjoint disks in B^4: every linking number is 0, and Beliakova–Wehrli 2008 with chi = n gives
-    # s(L) <= 1 - n and s(m(L)) <= 1 - n
-    reasons = ([f"a linking number is {next(v for v in links if v)}, not 0"] if any(links) else []) + [
-        f"s of the {what} over {f} is {value} > {1 - n} = 1 - n (Beliakova–Wehrli)"
-        for what, values in (("link", s), ("mirror", mirror_s)) for f, value in values.items() if value > 1 - n]
-    found = SearchResult(args.spec, why="no disjoint disks: " + reasons[0]) if reasons else find_ribbon_disk(
-        args.spec, budget, progress=_say_progress())
-    data = {"link": args.spec, "components": n, "found": found.movie is not None, "verdict": found.verdict,
-            "bands": list(found.bands), "movie": found.movie, "why": found.why, "s": s, "mirror_s": mirror_s,
-            "linking_numbers": links, "slice_certified": found.verdict == "verified"}
+    data, found = find_for(args.spec, args.what, _seconds(args.budget), args.to, progress=_say_progress())
     if args.output and found.movie:
         _write(args.output, found.movie)
     if args.json:
         print(json.dumps(data))
-    else:
+        return _found_exit(found)
+    print(_find_text(args, data, found))
+    return _found_exit(found)
+
+
+def _find_text(args: argparse.Namespace, data: dict, found) -> str:
+    if "link" in data:
+        n, links, s, mirror_s = data["components"], data["linking_numbers"], data["s"], data["mirror_s"]
         lines = [args.spec, f"  {n} components; linking numbers {links}; s {s}; s of the mirror {mirror_s}"]
         if found.movie:
             lines += ["  found ribbon disks, one for each component (" + ("; ".join(found.bands) or "no band")
                       + f"), checked: {found.verdict}", "", found.movie.rstrip()]
         else:
             lines.append(f"  no ribbon disks found: {found.why}")
-        print("\n".join(lines))
-    return _found_exit(found)
-
-
-def _run_find(args: argparse.Namespace) -> int:
-    """``movies find ribbon K`` and ``movies find surface K [--to K2]``: a surface found by a
-    search, checked as a movie, beside the lower bounds the invariants give."""
-    from movies.bounds.inequalities import best_genus_bound
-    from movies.bounds.verdicts import search_genus_bounds
-    from movies.checker.ribbon import SearchResult, find_ribbon_disk
-    from movies.language.spec import parse_diagram
-
-    budget = _seconds(args.budget)
-    knot = parse_diagram(args.spec)
-    if args.to is not None and args.what != "surface":
-        raise InputError("--to is for 'movies find surface' (a cobordism between two knots)")
-    if knot.component_count() != 1:
-        if args.what != "ribbon":
-            raise InputError(f"movies find surface is for knots; {args.spec} has {knot.component_count()} components "
-                             "(movies find ribbon takes links: one disk for each component)")
-        return _find_link_ribbon(args, knot, budget)
-    other = None if args.to is None else parse_diagram(args.to)
-    if other is not None and other.component_count() != 1:
-        raise InputError(f"--to takes a knot; {args.to} has {other.component_count()} components")
-    bounds = search_genus_bounds(knot, other)
-    best = best_genus_bound(bounds)
-    if args.what == "surface":
-        from movies.checker.genus import find_surface
-
-        found = find_surface(args.spec, budget, to=args.to, progress=_say_progress())
-    elif best.bound > 0:  # not slice: no disk to look for
-        found = SearchResult(args.spec, why=f"the knot is not slice: {best.invariant} gives g4 >= {best.bound}")
-    else:
-        found = find_ribbon_disk(args.spec, budget, progress=_say_progress())
-    genus = found.genus if found.verdict == "verified" else None
-    cobordism = other is not None
-    certified = genus if genus is not None and genus == best.bound else None
-    data = {"knot": args.spec, "to": args.to, "found": found.movie is not None, "verdict": found.verdict,
-            "bands": list(found.bands), "movie": found.movie, "candidates": found.tried, "why": found.why,
-            ("genus_bounds" if cobordism else "four_genus_bounds"):
-                [{"invariant": b.invariant, "value": b.value, "bound": b.bound} for b in bounds],
-            "genus": genus, "best_lower_bound": best.bound,
-            ("genus_certified" if cobordism else "four_genus_certified"): certified}
-    if args.output and found.movie:
-        _write(args.output, found.movie)
-    if args.json:
-        print(json.dumps(data))
-        return _found_exit(found)
+        return "\n".join(lines)
+    cobordism = args.to is not None
+    bounds = data["genus_bounds" if cobordism else "four_genus_bounds"]
+    genus, best, invariant = data["genus"], data["best_lower_bound"], data["best_invariant"]
+    certified = data["genus_certified" if cobordism else "four_genus_certified"]
     lines = [args.spec if not cobordism else f"{args.spec} to {args.to}"]
     quantity = "genus" if cobordism else "g4"
     for b in bounds:
-        if b.invariant.startswith("Fox–Milnor"):
+        if b["invariant"].startswith("Fox–Milnor"):
             what = "the product of the determinants" if cobordism else "the determinant"
-            lines.append(f"  {what} {b.value}: " + ("a square" if b.bound == 0 else
-                                                    f"not a square, so by Fox–Milnor {quantity} >= 1"))
+            lines.append(f"  {what} {b['value']}: " + ("a square" if b["bound"] == 0 else
+                                                       f"not a square, so by Fox–Milnor {quantity} >= 1"))
         else:
-            lines.append(f"  {('difference of ' if cobordism else '') + b.invariant:<28} {b.value:>4}   "
-                         f"{quantity} >= {b.bound}")
+            lines.append(f"  {('difference of ' if cobordism else '') + b['invariant']:<28} {b['value']:>4}   "
+                         f"{quantity} >= {b['bound']}")
     what = "a ribbon disk" if args.what == "ribbon" else "a cobordism" if cobordism else "a surface"
     if found.movie:
         lines.append(f"  found {what} of genus {genus} (" + ("; ".join(found.bands) or "no band")
                      + f"), checked: {found.verdict}")
         if certified is not None:
             lines.append(f"  {'cobordism genus' if cobordism else '4-genus'} certified: {genus} (the surface found; "
-                         f"{best.invariant} gives {quantity} >= {best.bound})")
+                         f"{invariant} gives {quantity} >= {best})")
         else:
-            lines.append(f"  {quantity} is between {best.bound} ({best.invariant}) and {genus} (the surface found)")
+            lines.append(f"  {quantity} is between {best} ({invariant}) and {genus} (the surface found)")
         lines += ["", found.movie.rstrip()]
     else:
         lines.append(f"  no {what[2:]} found: {found.why}")
-    print("\n".join(lines))
-    return _found_exit(found)
+    return "\n".join(lines)
 
 
 def _found_exit(found) -> int:
@@ -779,6 +737,73 @@ def _run_blown_up(args: argparse.Namespace, first, data: dict, lines: list[str])
     lines += blown_up_lines(args.spec, target, answer)
     print(json.dumps(data) if args.json else "\n".join(lines))
     return EXIT_OK
+
+
+def _run_batch(args: argparse.Namespace) -> int:
+    """``movies batch run``: see :mod:`movies.batch`."""
+    from movies.batch.engine import run_batch
+    from movies.batch.items import crossing_range, file_items, movie_items, table_items
+    from movies.batch.store import ResultStore
+    from movies.batch.tasks import task_options
+
+    if args.knots or args.links:
+        items = table_items("knot" if args.knots else "link", *crossing_range(args.knots or args.links))
+    elif args.diagrams:
+        items = file_items(args.diagrams)
+    else:
+        items = movie_items(args.movies)
+    if args.task == "invariants":
+        if args.budget is not None:
+            raise InputError("--budget is for the tasks check, find-ribbon and find-surface")
+        fields = ["Q", "F2"] + [f for f in args.field if f.upper() not in ("Q", "F2")]
+        options = task_options("invariants", fields=fields, classical=args.classical, reduced=args.reduced,
+                               bar_natan=args.bar_natan)
+    else:
+        if args.field or args.classical or args.reduced or args.bar_natan:
+            raise InputError("--field, --classical, --reduced and --bar-natan are for the task invariants")
+        options = task_options(args.task, budget=None if args.budget is None else _seconds(args.budget))
+    workers = _number(args.workers, "--workers")
+    if args.scheduler and workers is not None:
+        raise InputError("--workers sizes the local cluster; with --scheduler the workers are the scheduler's")
+    command = "movies " + " ".join(sys.argv[1:]) if sys.argv[1:2] == ["batch"] else "the same command"
+    with ResultStore(args.db) as store:
+        outcome = run_batch(items, args.task, options, store, _seconds(args.time_limit), args.scheduler, workers,
+                            log=None if sys.stderr.isatty() else (lambda line: print(line, file=sys.stderr,
+                                                                                     flush=True)))
+    counts = ", ".join(f"{n} {status}" for status, n in sorted(outcome.counts.items())) or "nothing new"
+    print(f"{args.db}: {outcome.total} items; {outcome.skipped} already done; ran {outcome.ran}: {counts}")
+    if outcome.interrupted:
+        print(f"movies: interrupted; what finished is saved in {args.db}. Run {command} again to resume.",
+              file=sys.stderr)
+        return EXIT_INTERRUPTED
+    return EXIT_OK
+
+
+def _run_batch_summary(args: argparse.Namespace) -> int:
+    from movies.batch.report import summary, summary_text
+    from movies.batch.store import ResultStore
+
+    _existing(args.db)
+    with ResultStore(args.db) as store:
+        entries = summary(store)
+    print(json.dumps(entries) if args.json else summary_text(entries, args.db))
+    return EXIT_OK
+
+
+def _run_batch_export(args: argparse.Namespace) -> int:
+    from movies.batch.report import export_csv, export_jsonl
+    from movies.batch.store import ResultStore
+
+    _existing(args.db)
+    with ResultStore(args.db) as store:
+        count = export_csv(store, args.csv) if args.csv else export_jsonl(store, args.jsonl)
+    print(f"{count} rows written to {args.csv or args.jsonl}")
+    return EXIT_OK
+
+
+def _existing(path: str) -> None:
+    if not os.path.isfile(path):
+        raise InputError(f"there is no results file {path}")
 
 
 class _progress:

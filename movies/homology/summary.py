@@ -89,3 +89,71 @@ def homology_summary(
                             for k, count in sorted(powers.items())],
             }
     return result
+
+
+def handle_link_facts(link, fields: Sequence[str], classical: bool = False, reduced: bool = False,
+                      bar_natan: bool = False, twists: int = 3) -> dict:
+    """``movies invariants`` of a link in #ʳ S¹×S² as data: its class, s and Khovanov homology of
+    its twisted approximations; with ``classical``, ``reduced`` or ``bar_natan`` also every L(k)
+    as a link in S³ (``approximations``). The command line prints it; a batch stores it.
+
+    >>> from movies.diagram.handles import fibers
+    >>> facts = handle_link_facts(fibers(1, 1), ["Q"], twists=1)
+    >>> facts["class"], facts["s"]["Q"]["plus"]["value"]
+    ([0], -1)
+    """
+    from movies.diagram.handles import twisted
+    from movies.errors import InputError, NotNullHomologousError, NotTwoDivisibleError
+    from movies.homology.approximations import khovanov_of_handles, s_of_handles
+    from movies.invariants.summary import classical_invariants
+
+    if twists < 1:
+        raise InputError(f"--twists is 1 or more, not {twists}")
+    facts: dict = {
+        "handles": len(link.gates), "class": list(link.homology_class()),
+        "null_homologous": link.null_homologous(), "two_divisible": link.two_divisible(),
+        "null_homologous_orientations": [list(o) for o in link.null_homologous_orientations()],
+        "s": None, "s_note": "", "khovanov": None, "khovanov_note": "",
+    }
+    ks = sorted(range(-twists, twists + 1), key=lambda k: (k < 0, abs(k)))
+    if classical:
+        facts["s_note"] = facts["khovanov_note"] = "not computed (--classical)"
+    else:
+        try:
+            found = s_of_handles(link, fields, most=twists)
+            facts["s"] = {field: sequence.as_json() for field, sequence in found.items()}
+            ks = sorted(set().union(*(sequence.values for sequence in found.values())), key=lambda k: (k < 0, abs(k)))
+        except NotNullHomologousError as err:
+            facts["s_note"] = str(err)
+        try:
+            facts["khovanov"] = {"Q": [t.as_json() for t in khovanov_of_handles(link, sorted(ks), "Q")]}
+        except NotTwoDivisibleError as err:
+            facts["khovanov_note"] = str(err)
+    if classical or reduced or bar_natan:
+        approximations = []
+        for k in sorted(ks):
+            diagram = twisted(link, k)
+            entry = {"k": k, **classical_invariants(diagram)}
+            if not classical and not diagram.is_empty():
+                entry.update(homology_summary(diagram, fields, reduced, bar_natan))
+            approximations.append(entry)
+        facts["approximations"] = approximations
+    return facts
+
+
+def invariants_facts(diagram: Diagram, fields: Sequence[str], classical: bool = False, reduced: bool = False,
+                     bar_natan: bool = False, progress: Callable | None = None) -> dict:
+    """``movies invariants`` of a diagram in S³ as data: the classical invariants, and unless
+    ``classical`` the homology (:func:`homology_summary`). The command line prints it; a batch
+    stores it.
+
+    >>> from movies.diagram.constructors import unknot
+    >>> invariants_facts(unknot(), ["Q"])["s"]
+    {'Q': 0}
+    """
+    from movies.invariants.summary import classical_invariants
+
+    facts = classical_invariants(diagram)
+    if not classical and not diagram.is_empty():
+        facts.update(homology_summary(diagram, fields, reduced, bar_natan, progress=progress))
+    return facts
