@@ -1,10 +1,11 @@
 """Running a batch on Dask: a local cluster of worker processes by default, or a running
 scheduler, with progress, results written by the client, and a clean stop on Ctrl-C.
 
-The client submits one Dask task per item (:func:`movies.batch.tasks.run_item`, which keeps the
-item's time limit itself), gathers results as they come and writes them to the database in
-transactions. A worker that dies takes its running items with it; the scheduler runs them again
-on the others, and each item is written once, when its result arrives.
+The client submits the items in small chunks, one Dask task each (:func:`chunk_size`; each item
+runs through :func:`movies.batch.tasks.run_item`, which keeps its time limit itself), gathers
+results as they come and writes them to the database in transactions. A worker that dies takes
+its running chunk with it; the scheduler runs it again on the others, and each item is written
+once, when its result arrives.
 """
 
 from __future__ import annotations
@@ -71,15 +72,18 @@ def run_batch(items: list[Item], task: str, options: dict, store: ResultStore, s
     bar = _Progress(len(pending), log)
     futures = []
     try:
-        futures = client.map(_run_one, pending, task=task, options=options, seconds=seconds, version=version,
+        size = chunk_size(len(pending), len(client.scheduler_info().get("workers", {})) or 1)
+        chunks = [pending[i:i + size] for i in range(0, len(pending), size)]
+        futures = client.map(_run_chunk, chunks, task=task, options=options, seconds=seconds, version=version,
                              canonical=canonical, pure=False)
         from distributed import as_completed
 
         for future in as_completed(futures):
-            row = future.result()
-            waiting.append(row)
-            outcome.counts[row.status] = outcome.counts.get(row.status, 0) + 1
-            bar.advance(row)
+            rows = future.result()
+            waiting.extend(rows)
+            for row in rows:
+                outcome.counts[row.status] = outcome.counts.get(row.status, 0) + 1
+            bar.advance(len(rows))
             if len(waiting) >= COMMIT_ROWS or time.monotonic() - last_commit >= COMMIT_SECONDS:
                 store.write(waiting)
                 waiting, last_commit = [], time.monotonic()
@@ -96,15 +100,34 @@ def run_batch(items: list[Item], task: str, options: dict, store: ResultStore, s
     return outcome
 
 
-def _run_one(item: Item, task: str, options: dict, seconds: float, version: str, canonical: str) -> Row:
-    """On a worker: run one item and make its row."""
+def chunk_size(items: int, workers: int) -> int:
+    """How many items one Dask task runs: enough that the scheduler's and the client's work per
+    task is small beside the items' own, few enough that every worker gets fifty or so tasks (the
+    last ones end close together, and a worker that dies loses little).
+
+    >>> chunk_size(12965, 2), chunk_size(40, 2), chunk_size(3, 8)
+    (25, 1, 1)
+    """
+    return max(1, min(CHUNK_MOST, items // (workers * 50)))
+
+
+#: at most this many items in one Dask task
+CHUNK_MOST = 25
+
+
+def _run_chunk(items: list[Item], task: str, options: dict, seconds: float, version: str,
+               canonical: str) -> list[Row]:
+    """On a worker: run items one after another, each under its time limit, and make their rows."""
     import json
 
-    start = time.monotonic()
-    status, result, reason = run_item(task, item.text, options, seconds)
-    elapsed = int(round((time.monotonic() - start) * 1000))
-    return Row(item.key, item.source, item.text, item.position, task, version, canonical, status,
-               json.dumps(result) if result is not None else None, reason, elapsed)
+    rows = []
+    for item in items:
+        start = time.monotonic()
+        status, result, reason = run_item(task, item.text, options, seconds)
+        elapsed = int(round((time.monotonic() - start) * 1000))
+        rows.append(Row(item.key, item.source, item.text, item.position, task, version, canonical, status,
+                        json.dumps(result) if result is not None else None, reason, elapsed))
+    return rows
 
 
 def _connect(scheduler: str | None, workers: int | None):
@@ -145,10 +168,10 @@ class _Progress:
 
             self.bar = tqdm(total=total, unit="item", file=sys.stderr, dynamic_ncols=True)
 
-    def advance(self, row: Row) -> None:
-        self.count += 1
+    def advance(self, count: int) -> None:
+        self.count += count
         if self.bar is not None:
-            self.bar.update(1)
+            self.bar.update(count)
             return
         now = time.monotonic()
         if self.log is not None and (now - self.last >= 10 or self.count == self.total):

@@ -38,7 +38,11 @@ def find_for(spec: str, what: str, budget: float, to: str | None = None, progres
 
 
 def find_knot(spec: str, what: str, budget: float, to: str | None = None, progress=None) -> tuple[dict, SearchResult]:
-    """A ribbon disk or a least-genus surface for a knot (or a cobordism to ``to``), with its bounds."""
+    """A ribbon disk or a least-genus surface for a knot (or a cobordism to ``to``), with its bounds.
+
+    For a surface to nothing, when no bound rules out a disk (the best bound is 0), the ribbon
+    search runs first, with half the budget: the band-pair search starts at genus one.
+    """
     other = None if to is None else parse_diagram(to)
     if other is not None and other.component_count() != 1:
         raise InputError(f"--to takes a knot; {to} has {other.component_count()} components")
@@ -48,7 +52,13 @@ def find_knot(spec: str, what: str, budget: float, to: str | None = None, progre
     if what == "surface":
         from movies.checker.genus import find_surface
 
-        found = find_surface(spec, budget, to=to, progress=progress)
+        found = None
+        if other is None and best.bound == 0:  # a disk may exist: the ribbon search first, with half the time
+            disk = find_ribbon_disk(spec, budget / 2, progress=progress)
+            found = disk if disk.verdict == "verified" else None
+            budget = budget / 2 if found is None else budget
+        if found is None:
+            found = find_surface(spec, budget, to=to, progress=progress)
     elif best.bound > 0:  # not slice: no disk to look for
         found = SearchResult(spec, why=f"the knot is not slice: {best.invariant} gives g4 >= {best.bound}")
     else:

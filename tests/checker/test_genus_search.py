@@ -35,6 +35,15 @@ def test_fox_milnor_certifies_genus_one_where_s_and_the_signature_vanish(capsys)
     assert data["best_lower_bound"] == 1 and data["four_genus_certified"] == 1 == int(table_row("4_1")["smooth_four_genus"])
 
 
+def test_a_slice_knot_gets_a_disk_from_find_surface(capsys):
+    # KnotInfo column smooth_four_genus: 6_1 has 4-genus 0; no invariant rules a disk out, so the ribbon search runs
+    # first, and the disk it finds is checked and certified
+    assert main(["find", "surface", "6_1", "--json", "--budget", "60"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert data["genus"] == 0 == data["four_genus_certified"] == int(table_row("6_1")["smooth_four_genus"])
+    assert check_movie(data["movie"]).verified
+
+
 def test_a_cobordism_between_two_knots(capsys):
     found = find_surface("7_1", budget=60, to="5_1")
     result = check_movie(found.movie)
