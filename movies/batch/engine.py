@@ -11,6 +11,7 @@ once, when its result arrives.
 from __future__ import annotations
 
 import os
+import signal
 import sys
 import time
 from dataclasses import dataclass, field
@@ -151,8 +152,14 @@ def _connect(scheduler: str | None, workers: int | None):
     count = workers or os.cpu_count() or 1
     if count < 1:
         raise InputError(f"a local cluster needs at least one worker, not {count}")
-    cluster = LocalCluster(n_workers=count, threads_per_worker=1, processes=True, dashboard_address=None,
-                           silence_logs=logging.ERROR)
+    # the worker processes ignore Ctrl-C (they inherit an ignored SIGINT, and Python then leaves it
+    # ignored): the client alone stops the batch, and shuts them down, without their tracebacks
+    previous = signal.signal(signal.SIGINT, signal.SIG_IGN)
+    try:
+        cluster = LocalCluster(n_workers=count, threads_per_worker=1, processes=True, dashboard_address=None,
+                               silence_logs=logging.ERROR)
+    finally:
+        signal.signal(signal.SIGINT, previous)
     return Client(cluster), cluster
 
 
