@@ -46,6 +46,10 @@ class InputError(MoviesError):
     """Input that cannot be read: unparsable text, a malformed code, an unknown name."""
 
 
+class ColumnTextError(InputError):
+    """A table entry whose text is not in any form its column uses."""
+
+
 class PDCodeError(InputError):
     """A PD code that is not the code of an oriented link diagram on the 2-sphere."""
 

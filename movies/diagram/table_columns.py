@@ -44,7 +44,7 @@ import json
 import re
 from fractions import Fraction
 
-from movies.errors import InputError
+from movies.errors import ColumnTextError
 
 __all__ = [
     "ColumnTextError",
@@ -59,10 +59,6 @@ __all__ = [
     "parse_braid",
     "parse_braids",
 ]
-
-
-class ColumnTextError(InputError):
-    """A table entry whose text is not in any form its column uses."""
 
 
 Exponents = tuple[Fraction, ...]

@@ -99,8 +99,8 @@ def handle_link_facts(link, fields: Sequence[str], classical: bool = False, redu
 
     >>> from movies.diagram.handles import fibers
     >>> facts = handle_link_facts(fibers(1, 1), ["Q"], twists=1)
-    >>> facts["class"], facts["s"]["Q"]["plus"]["value"]
-    ([0], -1)
+    >>> facts["class"], facts["null_homologous"], sorted(facts["s"]["Q"])
+    ([0], True, ['s_minus', 's_plus', 'sequence', 'window'])
     """
     from movies.diagram.handles import twisted
     from movies.errors import InputError, NotNullHomologousError, NotTwoDivisibleError

@@ -19,7 +19,7 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from movies.errors import MoviesError
-from support import knotinfo_columns as columns
+from movies.diagram import table_columns as columns
 from support.knotinfo_columns import (
     ColumnTextError,
     parse_braid,
