@@ -8,6 +8,6 @@ HTML report of a checked movie, which draws every frame, is in :mod:`movies.repo
 1
 """
 
-from movies.draw.svg import PALETTE, Highlight, diagram_svg, svg_repr
+from movies.draw.svg import PALETTE, Highlight, component_style, diagram_svg, svg_repr
 
-__all__ = ["Highlight", "PALETTE", "diagram_svg", "svg_repr"]
+__all__ = ["Highlight", "PALETTE", "component_style", "diagram_svg", "svg_repr"]

@@ -4,8 +4,8 @@ Every edge is one ``<path class="strand">`` drawn from its tail crossing to its 
 so the direction of the path is the orientation; ``data-edge``, ``data-component``,
 ``data-tail`` and ``data-head`` name what it is. Where the edge passes under at a crossing the
 path stops short of the crossing point (the gap); where it passes over it runs right through
-the point. Crossingless circles are closed paths. One colour per component, from
-:data:`PALETTE`.
+the point. Crossingless circles are closed paths. Each component has a colour by its name
+(:func:`component_style`), so it keeps it from frame to frame.
 
 >>> from movies.diagram.pd import from_pd
 >>> text = diagram_svg(from_pd([[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]), labels=True)
@@ -24,8 +24,23 @@ from movies.draw.curves import Strands, strands
 from movies.draw.geometry import sample
 from movies.draw.layout import Layout, inscribed_disk, layout, outer_face
 
-#: component colours, in order of component name (our own choice: strong, and apart on white)
-PALETTE = ("#0b6e8a", "#c2452d", "#6a8d1f", "#7d3c98", "#d98c10", "#2b4fa8", "#a0306a", "#3d7a5c")
+#: component colours: component n is drawn in PALETTE[(n - 1) % 8], so a component keeps its colour
+#: for as long as it keeps its name (our own choice: strong on white, dark and light in turn, so
+#: that neighbours in the order stay apart in greyscale print too)
+PALETTE = ("#1f5aa6", "#e8890c", "#1d7350", "#d9739b", "#4b2c82", "#5ab4e0", "#8a4412", "#9a9a9a")
+#: the second channel, past the palette: components 9 to 16 dashed, 17 to 24 dotted, and so on
+#: (stroke-dasharray in units of the stroke width; "" is a solid line)
+DASHES = ("", "4 2", "1 2", "6 2 1 2")
+
+
+def component_style(name: int) -> tuple[str, str]:
+    """The colour and dash pattern of the component named ``name``.
+
+    >>> component_style(1), component_style(9)
+    (('#1f5aa6', ''), ('#1f5aa6', '4 2'))
+    """
+    index = (name - 1) % len(PALETTE)
+    return PALETTE[index], DASHES[(name - 1) // len(PALETTE) % len(DASHES)]
 
 #: what highlighting looks like
 HIGHLIGHT_FACE = "#ffe9a8"
@@ -201,7 +216,7 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
         # a gap must stay visible: no wider than the stroke allows
         stroke = min(stroke, 1.6 * drawn.smallest_gap * k)
     stroke = max(stroke, 0.8)
-    colour_of = {name: PALETTE[i % len(PALETTE)] for i, name in enumerate(sorted(diagram.components))}
+    colour_of = {name: component_style(name)[0] for name in diagram.components}
     out = [
         f'<svg xmlns="http://www.w3.org/2000/svg" class="diagram" width="{_num(width)}" height="{_num(height)}" '
         f'viewBox="0 0 {_num(width)} {_num(height)}" data-crossings="{diagram.crossing_count()}" '
@@ -230,8 +245,10 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
         if not closed:
             tail, head = diagram.edge_ends[edge]
             ends = f' data-tail="{tail.crossing}" data-head="{head.crossing}"'
+        dash = component_style(component)[1]
+        dashes = f' stroke-dasharray="{" ".join(_num(float(x) * stroke) for x in dash.split())}"' if dash else ""
         out.append(f'<path class="strand" data-edge="{edge}" data-component="{component}"{ends} '
-                   f'd="{_path_data(curve, canvas, closed)}" fill="none" stroke="{colour}" '
+                   f'd="{_path_data(curve, canvas, closed)}" fill="none" stroke="{colour}"{dashes} '
                    f'stroke-width="{_num(stroke)}" stroke-linecap="round" stroke-linejoin="round"/>')
     for edge in sorted(drawn.curves):
         pts = [canvas(p) for p in sample(drawn.curves[edge])]
