@@ -59,10 +59,12 @@ class Highlight:
     edges: tuple[int, ...] = ()
     faces: tuple[int, ...] = ()
     crossings: tuple[int, ...] = ()
+    #: a band across one face: (first edge, second edge, face), drawn as the band itself
+    band: tuple[int, int, int] | None = None
 
     def is_empty(self) -> bool:
         """True when nothing is marked."""
-        return not (self.edges or self.faces or self.crossings)
+        return not (self.edges or self.faces or self.crossings or self.band)
 
 
 @dataclass
@@ -227,6 +229,8 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
     out.append(f'<rect x="0" y="0" width="{_num(width)}" height="{_num(height)}" fill="#ffffff"/>')
     root = outer_face(diagram) if diagram.faces else None
     for face in highlight.faces:
+        if highlight.band is not None and face == highlight.band[2]:
+            continue  # the band itself is drawn, not its face
         if face in diagram.faces:
             d = _face_path(diagram, face, drawn.curves, canvas, outer=face == root)
             out.append(f'<path class="hl-face" data-face="{face}" d="{d}" fill="{HIGHLIGHT_FACE}" '
@@ -236,6 +240,8 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
             d = _path_data(drawn.curves[edge], canvas, closed=edge in diagram.loops)
             out.append(f'<path class="hl-edge" data-edge="{edge}" d="{d}" fill="none" stroke="{HIGHLIGHT_EDGE}" '
                        f'stroke-width="{_num(stroke * 4.5)}" stroke-linecap="round" stroke-linejoin="round" opacity="0.85"/>')
+    if highlight.band is not None:
+        out.extend(_band(diagram, highlight.band, drawn, canvas, stroke))
     for edge in sorted(drawn.curves):
         component = diagram.component_of(edge)
         colour = colour_of[component]
@@ -335,6 +341,99 @@ def _gate(diagram: Diagram, gate, index: int, drawn: Strands, canvas: _Canvas, s
             f'{_num(stroke * 2)}" stroke-linecap="round"/>',
             f'<text class="gate-name" x="{_num(x)}" y="{_num(y)}" font-size="{_num(stroke * 9)}" '
             f'fill="#222222" text-anchor="middle">h{index}</text>']
+
+
+def _band(diagram: Diagram, band: tuple[int, int, int], drawn: Strands, canvas: _Canvas, stroke: float) -> list[str]:
+    """A band across a face, drawn as a strip between its two edges: its two sides and its core.
+
+    The core joins the closest pair of points of the two edges (away from their ends) whose segment
+    leaves each edge into the band's face and crosses no strand; nothing is drawn if there is none.
+    """
+    first, second, face = band
+    if first not in drawn.curves or second not in drawn.curves or face not in diagram.faces:
+        return []
+    lines = {edge: [canvas(p) for p in sample(drawn.curves[edge])] for edge in (first, second)}
+    others = [[canvas(p) for p in sample(curve)] for edge, curve in drawn.curves.items() if edge not in (first, second)]
+
+    def inner(edge):
+        line = lines[edge]
+        cut = len(line) // 6 if edge not in diagram.loops else 0
+        return line[cut:len(line) - cut] or line
+
+    def into_face(edge, index, target) -> bool:
+        line = lines[edge]
+        a, b = line[max(index - 1, 0)], line[min(index + 1, len(line) - 1)]
+        tx, ty = b[0] - a[0], b[1] - a[1]
+        cross = tx * (target[1] - line[index][1]) - ty * (target[0] - line[index][0])
+        left, right = diagram.faces_beside(edge)
+        # on the canvas (y down) a positive cross product is to the right of the direction of travel
+        return (face == right) == (cross > 0) or left == right
+
+    def clear(p, q) -> bool:
+        return not any(_segments_cross(p, q, a, b) for line in others for a, b in zip(line, line[1:]))
+
+    best = None
+    for i, p in enumerate(inner(first)):
+        for j, q in enumerate(inner(second)):
+            gap = math.hypot(q[0] - p[0], q[1] - p[1])
+            if gap < 1e-9 or (best is not None and gap >= best[0]):
+                continue
+            ip, iq = lines[first].index(p), lines[second].index(q)
+            if into_face(first, ip, q) and into_face(second, iq, p) and clear(p, q):
+                best = (gap, p, q)
+    if best is not None:
+        core = [best[1], best[2]]
+    elif face == outer_face(diagram):
+        core = _around(lines[first], lines[second], others + [lines[first], lines[second]], canvas, clear)
+        if core is None:
+            return []
+    else:
+        return []
+    d = "M" + " L".join(f"{_num(x)} {_num(y)}" for x, y in core)
+    # the band: a wide pale stroke edged by a thin darker one, and its core dashed along the middle
+    return [f'<path class="band" data-edges="{first} {second}" data-face="{face}" d="{d}" fill="none" '
+            f'stroke="{HIGHLIGHT_EDGE}" stroke-width="{_num(stroke * 5.4)}" stroke-linejoin="round"/>',
+            f'<path class="band-inside" d="{d}" fill="none" stroke="{HIGHLIGHT_FACE}" '
+            f'stroke-width="{_num(stroke * 3.8)}" stroke-linejoin="round"/>',
+            f'<path class="band-core" d="{d}" fill="none" stroke="{HIGHLIGHT_EDGE}" stroke-width="{_num(stroke * 0.6)}" '
+            f'stroke-dasharray="{_num(stroke * 2)} {_num(stroke * 1.5)}"/>']
+
+
+def _around(first: list, second: list, lines: list, canvas: _Canvas, clear) -> list | None:
+    """A core for a band across the outer face: out from the outermost point of one edge, around
+    the drawing in the margin, and in to the outermost point of the other; None if a piece of it
+    would cross a strand."""
+    points = [p for line in lines for p in line]
+    cx = sum(p[0] for p in points) / len(points)
+    cy = sum(p[1] for p in points) / len(points)
+    radius = max(math.hypot(p[0] - cx, p[1] - cy) for p in points) + canvas.pad * 0.5
+    def outer_part(line):  # away from the edge's ends, and near the outside of the drawing
+        inner = line[len(line) // 6:len(line) - len(line) // 6] or line
+        far = max(math.hypot(t[0] - cx, t[1] - cy) for t in inner)
+        return [t for t in inner if math.hypot(t[0] - cx, t[1] - cy) >= 0.85 * far]
+
+    def angle(t):
+        return math.atan2(t[1] - cy, t[0] - cx)
+
+    def turn_between(u, v):  # the shorter way round
+        return (angle(v) - angle(u) + math.pi) % (2 * math.pi) - math.pi
+
+    p, q = min(((u, v) for u in outer_part(first) for v in outer_part(second)),
+               key=lambda pair: abs(turn_between(*pair)))
+    a, turn = angle(p), turn_between(p, q)
+    steps = max(2, int(abs(turn) / 0.15))
+    arc = [(cx + radius * math.cos(a + turn * k / steps), cy + radius * math.sin(a + turn * k / steps))
+           for k in range(steps + 1)]
+    core = [p] + arc + [q]
+    return core if all(clear(u, v) for u, v in zip(core, core[1:])) else None
+
+
+def _segments_cross(p, q, a, b) -> bool:
+    """Whether the segments pq and ab cross at a point inside both."""
+    def side(u, v, w):
+        return (v[0] - u[0]) * (w[1] - u[1]) - (v[1] - u[1]) * (w[0] - u[0])
+
+    return (side(p, q, a) * side(p, q, b) < 0) and (side(a, b, p) * side(a, b, q) < 0)
 
 
 def _labels(diagram, lay, drawn, canvas, colour_of, stroke) -> list[str]:

@@ -81,7 +81,11 @@ def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
         number = index + 1  # the step that acts on this frame
         statement = statements[index] if index < len(statements) else None
         places = result.places[index] if index < len(result.places) else None
-        highlight = Highlight(places.edges, places.faces, places.crossings) if places is not None else None
+        band = None
+        record = statement.record if statement is not None else None
+        if record is not None and record.kind == "band" and not record.path and places is not None and places.faces:
+            band = (record.first, record.second, places.faces[0])
+        highlight = Highlight(places.edges, places.faces, places.crossings, band) if places is not None else None
         what = "the start" if index == 0 else f"after step {index}"
         caption = (f"frame {index} ({what}): {plural(frame.crossing_count(), 'crossing')}, "
                    f"{plural(frame.component_count(), 'component')}")

@@ -1,0 +1,68 @@
+"""The band of a saddle is drawn as a band: a strip from one of its edges to the other, across its
+face, crossing no other strand. Read back from the SVG of the report."""
+
+import math
+import re
+import xml.etree.ElementTree as ET
+from pathlib import Path
+
+import pytest
+
+from movies.checker.replay import check_movie
+from movies.report.html import movie_html
+
+from draw.readback import parse_path
+
+EXAMPLES = Path(__file__).resolve().parents[2] / "examples" / "movies"
+
+
+def _near(point, polyline) -> float:
+    """The distance from a point to a polyline."""  # noqa: D401
+    best = math.inf
+    for (ax, ay), (bx, by) in zip(polyline, polyline[1:]):
+        dx, dy = bx - ax, by - ay
+        t = max(0.0, min(1.0, ((point[0] - ax) * dx + (point[1] - ay) * dy) / (dx * dx + dy * dy or 1)))
+        best = min(best, math.hypot(point[0] - ax - t * dx, point[1] - ay - t * dy))
+    return best
+
+
+def _crosses(p, q, polyline) -> bool:
+    def side(u, v, w):
+        return (v[0] - u[0]) * (w[1] - u[1]) - (v[1] - u[1]) * (w[0] - u[0])
+
+    return any(side(p, q, a) * side(p, q, b) < 0 and side(a, b, p) * side(a, b, q) < 0
+               for a, b in zip(polyline, polyline[1:]))
+
+
+@pytest.mark.parametrize("name", ["square-knot-ribbon", "8_20-ribbon", "trefoil-concordance", "5_2-to-5_1-genus-one"])
+def test_every_band_across_a_face_is_drawn_between_its_edges(name):
+    result = check_movie(EXAMPLES / f"{name}.movie")
+    page = movie_html(result, source=name)
+    frames = re.findall(r'<svg xmlns="http://www.w3.org/2000/svg" class="diagram".*?</svg>', page, re.S)
+    bands = 0
+    for index, statement in enumerate(result.movie.steps):
+        record = statement.record
+        if record is None or record.kind != "band" or record.path:
+            continue
+        root = ET.fromstring(frames[index])
+        strands, core = {}, None
+        stroke = None
+        for element in root.iter():
+            if element.get("class") == "strand":
+                strands[int(element.get("data-edge"))] = parse_path(element.get("d"))[0]
+                stroke = float(element.get("stroke-width"))
+            elif element.get("class") == "band-core":
+                core = parse_path(element.get("d"))[0]
+        assert core is not None, (name, index)
+        p, q = core[0], core[-1]
+        # its ends lie on its two edges (the strands are drawn with gaps at crossings: a stroke's width off)
+        assert {min(strands, key=lambda e: _near(p, strands[e])), min(strands, key=lambda e: _near(q, strands[e]))} \
+            == {record.first, record.second}, (name, index)
+        assert max(_near(p, strands[record.first]) if _near(p, strands[record.first]) < _near(q, strands[record.first])
+                   else _near(q, strands[record.first]),
+                   min(_near(p, strands[record.second]), _near(q, strands[record.second]))) < 2 * stroke
+        # and its core crosses no other strand (around the outside, for the outer face)
+        others = [line for edge, line in strands.items() if edge not in (record.first, record.second)]
+        assert not any(_crosses(u, v, line) for u, v in zip(core, core[1:]) for line in others), (name, index)
+        bands += 1
+    assert bands >= 1
