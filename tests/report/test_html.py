@@ -55,8 +55,8 @@ def test_the_frames_of_the_square_knot_movie_read_back_and_mark_each_move():
     def marked(svg, cls, key):
         return sorted(int(e.get(key)) for e in svg.iter() if e.get("class") == cls)
 
-    # step 1 is "band 4 10 in face 1": its two edges and its face are marked in frame 0
-    assert marked(first, "hl-edge", "data-edge") == [4, 10] and marked(first, "hl-face", "data-face") == [1]
+    # step 1 is "band 4 10 in face 1": its two edges are marked in frame 0, and the band itself is drawn across face 1
+    assert marked(first, "hl-edge", "data-edge") == [4, 10] and marked(first, "band", "data-face") == [1]
     # steps 3 and 4 are "death 1", "death 2": the circle that dies is marked in the frame before
     assert marked(before_death_1, "hl-edge", "data-edge") == list(result.frames[2].components[1])
     assert marked(before_death_2, "hl-edge", "data-edge") == list(result.frames[3].components[2])
