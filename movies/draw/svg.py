@@ -61,10 +61,12 @@ class Highlight:
     crossings: tuple[int, ...] = ()
     #: a band across one face: (first edge, second edge, face), drawn as the band itself
     band: tuple[int, int, int] | None = None
+    #: a twist step: (its gate, as a handle's Gate, and its full twists), drawn as a box across the strands
+    twist: tuple | None = None
 
     def is_empty(self) -> bool:
         """True when nothing is marked."""
-        return not (self.edges or self.faces or self.crossings or self.band)
+        return not (self.edges or self.faces or self.crossings or self.band or self.twist)
 
 
 @dataclass
@@ -275,19 +277,26 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
                        f'r="{_num(stroke * 5)}" fill="none" stroke="{HIGHLIGHT_CROSSING}" stroke-width="{_num(stroke)}"/>')
     for index, gate in enumerate(gates, start=1):
         out.extend(_gate(diagram, gate, index, drawn, canvas, stroke))
+    if highlight.twist is not None:
+        gate, turns = highlight.twist
+        out.extend(_gate(diagram, gate, f"{turns:+d}", drawn, canvas, stroke, kind="twist"))
     if labels:
         out.extend(_labels(diagram, lay, drawn, canvas, colour_of, stroke))
     out.append("</svg>")
     return "\n".join(out)
 
 
-def _gate(diagram: Diagram, gate, index: int, drawn: Strands, canvas: _Canvas, stroke: float) -> list[str]:
-    """A handle's gate: a dashed path across each edge it crosses, with its name.
+def _gate(diagram: Diagram, gate, index, drawn: Strands, canvas: _Canvas, stroke: float,
+          kind: str = "gate") -> list[str]:
+    """A handle's gate: a dashed path across each edge it crosses, with its name (``h1``, ...);
+    or, with ``kind="twist"``, a twist step's box: a wide band across the strands it twists,
+    labelled with its full twists (``+1``).
 
     Where it crosses an edge is chosen near where it crossed the edge before (near the first
     edge's neighbour for the first), so that a gate through the corner of a crossing stays in
-    that corner; it starts a little inside the face beside its first edge and ends a little
-    inside the face beyond its last, and runs straight between.
+    that corner, and where the straight piece from there meets no other strand; it starts a little
+    inside the face beside its first edge and ends a little inside the face beyond its last, and
+    runs straight between.
     """
     if not gate.edges or any(edge not in drawn.curves for edge in gate.edges):
         return []  # a handle no strand passes through has no place in the drawing
@@ -298,15 +307,25 @@ def _gate(diagram: Diagram, gate, index: int, drawn: Strands, canvas: _Canvas, s
         cut = len(line) // 6
         return line[cut:len(line) - cut] or line
 
+    others = [[canvas(p) for p in sample(curve)] for edge, curve in drawn.curves.items() if edge not in lines]
+
+    def clear(p, q) -> bool:  # the straight piece between two crossing points meets no other strand
+        return not any(_segments_cross(p, q, a, b) for line in others for a, b in zip(line, line[1:]))
+
     def nearest(candidates, targets):
-        return min(candidates, key=lambda p: min(math.hypot(p[0] - q[0], p[1] - q[1]) for q in targets))
+        ranked = sorted(candidates, key=lambda p: min(math.hypot(p[0] - q[0], p[1] - q[1]) for q in targets))
+        return next((p for p in ranked if all(clear(p, q) for q in targets[:1])), ranked[0])
 
     reach = stroke * 9
     chosen = []
     for position, edge in enumerate(gate.edges):
         if position == 0:
-            chosen.append(nearest(inner(edge), inner(gate.edges[1])) if len(gate.edges) > 1
-                          else _middle(lines[edge])[0])
+            if len(gate.edges) > 1:  # the closest pair of points on the first two edges with a clear piece between
+                pairs = sorted(((p, q) for p in inner(edge) for q in inner(gate.edges[1])),
+                               key=lambda pq: math.hypot(pq[0][0] - pq[1][0], pq[0][1] - pq[1][1]))
+                chosen.append(next((p for p, q in pairs if clear(p, q)), pairs[0][0]))
+            else:
+                chosen.append(_middle(lines[edge])[0])
         elif edge == gate.edges[position - 1]:  # a turn-back: cross the edge again a little further on
             px, py = chosen[-1]
             away = [p for p in inner(edge) if math.hypot(p[0] - px, p[1] - py) >= 3 * reach]
@@ -324,8 +343,15 @@ def _gate(diagram: Diagram, gate, index: int, drawn: Strands, canvas: _Canvas, s
         left, right = diagram.faces_beside(edge)
         # on the canvas (y down) the left of the direction (tx, ty) is (ty, -tx)
         nx, ny = (ty, -tx) if here == left else (-ty, tx)
+        def stub(sign):  # a short way into the face, shorter where another strand is near
+            for length in (reach, reach / 2, reach / 4):
+                end = (mx + sign * length * nx, my + sign * length * ny)
+                if clear((mx, my), end):
+                    return end
+            return (mx + sign * reach / 8 * nx, my + sign * reach / 8 * ny)
+
         if position == 0:
-            points.append((mx + reach * nx, my + reach * ny))
+            points.append(stub(+1))
         if position > 0 and edge == gate.edges[position - 1]:  # the turn-back bulges into the face between
             points.append((mx + reach * nx, my + reach * ny))
         points.append((mx, my))
@@ -333,10 +359,17 @@ def _gate(diagram: Diagram, gate, index: int, drawn: Strands, canvas: _Canvas, s
             points.append((mx - reach * nx, my - reach * ny))
         here = right if here == left else left
         if position == len(gate.edges) - 1:
-            points.append((mx - reach * nx, my - reach * ny))
+            points.append(stub(-1))
     d = "M" + " L".join(f"{_num(x)} {_num(y)}" for x, y in points)
     x, y = points[0]
-    return [f'<path class="gate" data-handle="{index}" data-edges="{" ".join(map(str, gate.edges))}" d="{d}" '
+    edges = " ".join(map(str, gate.edges))
+    if kind == "twist":
+        return [f'<path class="twist" data-edges="{edges}" data-turns="{index}" d="{d}" fill="none" '
+                f'stroke="{HIGHLIGHT_EDGE}" stroke-opacity="0.55" stroke-width="{_num(stroke * 7)}" '
+                f'stroke-linecap="butt" stroke-linejoin="round"/>',
+                f'<text class="twist-name" x="{_num(x)}" y="{_num(y)}" font-size="{_num(stroke * 9)}" '
+                f'fill="#222222" text-anchor="middle">{index}</text>']
+    return [f'<path class="gate" data-handle="{index}" data-edges="{edges}" d="{d}" '
             f'fill="none" stroke="#222222" stroke-width="{_num(stroke * 1.2)}" stroke-dasharray="{_num(stroke * 3)} '
             f'{_num(stroke * 2)}" stroke-linecap="round"/>',
             f'<text class="gate-name" x="{_num(x)}" y="{_num(y)}" font-size="{_num(stroke * 9)}" '

@@ -70,6 +70,20 @@ def _step_table(data: dict) -> list[str]:
     return out
 
 
+def _twist_box(frame, record):
+    """A twist step's gate, as the drawing takes a handle's gate, and its turns; None if it does not apply."""
+    from movies.diagram.handles import Gate
+    from movies.diagram.moves.twist import gate_path
+    from movies.errors import MoveError
+
+    try:
+        faces, _ = gate_path(frame, record.edges, record.start_face)
+    except MoveError:
+        return None
+    left, _ = frame.faces_beside(record.edges[0])
+    return Gate(tuple(record.edges), "L" if faces[0] == left else "R"), record.turns
+
+
 def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
     out = ['<p class="mv-legend">Edge names sit beside their edges in the colour of their component, '
            "crossing names in small circles, face names in grey italics. In each frame the place of the "
@@ -85,7 +99,11 @@ def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
         record = statement.record if statement is not None else None
         if record is not None and record.kind == "band" and not record.path and places is not None and places.faces:
             band = (record.first, record.second, places.faces[0])
-        highlight = Highlight(places.edges, places.faces, places.crossings, band) if places is not None else None
+        twist = None
+        if record is not None and record.kind == "twist" and places is not None:
+            twist = _twist_box(frame, record)
+        highlight = (Highlight(places.edges, () if twist else places.faces, places.crossings, band, twist)
+                     if places is not None else None)
         what = "the start" if index == 0 else f"after step {index}"
         caption = (f"frame {index} ({what}): {plural(frame.crossing_count(), 'crossing')}, "
                    f"{plural(frame.component_count(), 'component')}")

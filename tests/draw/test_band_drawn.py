@@ -66,3 +66,30 @@ def test_every_band_across_a_face_is_drawn_between_its_edges(name):
         assert not any(_crosses(u, v, line) for u, v in zip(core, core[1:]) for line in others), (name, index)
         bands += 1
     assert bands >= 1
+
+
+@pytest.mark.parametrize("name", ["5_1-unknotted-by-twists", "mirror-5_1-least-genus-in-a-blowup"])
+def test_every_twist_step_is_drawn_as_a_box_across_its_strands(name):
+    result = check_movie(EXAMPLES / f"{name}.movie")
+    page = movie_html(result, source=name)
+    frames = re.findall(r'<svg xmlns="http://www.w3.org/2000/svg" class="diagram".*?</svg>', page, re.S)
+    twists = 0
+    for index, statement in enumerate(result.movie.steps):
+        record = statement.record
+        if record is None or record.kind != "twist":
+            continue
+        root = ET.fromstring(frames[index])
+        strands, box = {}, None
+        for element in root.iter():
+            if element.get("class") == "strand":
+                strands[int(element.get("data-edge"))] = parse_path(element.get("d"))[0]
+            elif element.get("class") == "twist":
+                box = parse_path(element.get("d"))[0]
+                assert element.get("data-turns") == f"{record.turns:+d}"
+        assert box is not None, (name, index)
+        crossed = {edge for edge, line in strands.items()
+                   if any(_crosses(u, v, line) for u, v in zip(box, box[1:]))}
+        # the box crosses exactly the strands the twist acts on
+        assert crossed == set(record.edges), (name, index, crossed)
+        twists += 1
+    assert twists >= 1
