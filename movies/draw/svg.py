@@ -469,30 +469,84 @@ def _segments_cross(p, q, a, b) -> bool:
     return (side(p, q, a) * side(p, q, b) < 0) and (side(a, b, p) * side(a, b, q) < 0)
 
 
+def _at_fraction(points: list[tuple[float, float]], fraction: float):
+    """The point a fraction of the way along a polyline, and the unit tangent there."""
+    lengths = [math.hypot(points[i + 1][0] - points[i][0], points[i + 1][1] - points[i][1]) for i in range(len(points) - 1)]
+    goal = sum(lengths) * fraction
+    for i, length in enumerate(lengths):
+        if goal <= length and length > 0:
+            f = goal / length
+            p, q = points[i], points[i + 1]
+            return (p[0] + f * (q[0] - p[0]), p[1] + f * (q[1] - p[1])), ((q[0] - p[0]) / length, (q[1] - p[1]) / length)
+        goal -= length
+    return points[-1], (1.0, 0.0)
+
+
+class _Room:
+    """Where labels already are, and the strands: a new label goes where it meets neither."""
+
+    def __init__(self, lines: list[list[tuple[float, float]]], points: list[tuple[float, float]], clearance: float):
+        self.boxes: list[tuple[float, float, float, float]] = []
+        self.points = points  # crossing points a label must not cover
+        self.lines = lines
+        self.clearance = clearance
+
+    def free(self, box, strands: bool = True) -> bool:
+        x0, y0, x1, y1 = box
+        if any(x0 < b[2] and b[0] < x1 and y0 < b[3] and b[1] < y1 for b in self.boxes):
+            return False
+        if not strands:
+            return True
+        pad = self.clearance
+        if any(x0 - pad < px < x1 + pad and y0 - pad < py < y1 + pad for px, py in self.points):
+            return False
+        return not any(_segment_meets_box(a, b, (x0 - pad, y0 - pad, x1 + pad, y1 + pad))
+                       for line in self.lines for a, b in zip(line, line[1:]))
+
+    def place(self, candidates, size, near=None) -> tuple[float, float]:
+        """The first candidate centre whose box meets no label and no strand; else, among the
+        ``near`` candidates, the first that meets no label; else the first candidate. Taken."""
+        w, h = size
+
+        def box(c):
+            return (c[0] - w / 2, c[1] - h / 2, c[0] + w / 2, c[1] + h / 2)
+
+        chosen = next((c for c in candidates if self.free(box(c))), None)
+        if chosen is None:
+            chosen = next((c for c in (near or []) if self.free(box(c), strands=False)), candidates[0])
+        self.boxes.append((chosen[0] - w / 2, chosen[1] - h / 2, chosen[0] + w / 2, chosen[1] + h / 2))
+        return chosen
+
+
+def _segment_meets_box(a, b, box) -> bool:
+    """Whether the segment ab meets the axis-parallel box (x0, y0, x1, y1)."""
+    x0, y0, x1, y1 = box
+    if max(a[0], b[0]) < x0 or min(a[0], b[0]) > x1 or max(a[1], b[1]) < y0 or min(a[1], b[1]) > y1:
+        return False
+    if x0 <= a[0] <= x1 and y0 <= a[1] <= y1:
+        return True
+    corners = [(x0, y0), (x1, y0), (x1, y1), (x0, y1)]
+    return any(_segments_cross(a, b, c, d) for c, d in zip(corners, corners[1:] + corners[:1]))
+
+
+def label_size(text: str, font: float) -> tuple[float, float]:
+    """The box a label takes: width and height (sans-serif digits are about 0.6 em wide).
+
+    >>> label_size("12", 11)
+    (15.2, 11)
+    """
+    return round(0.6 * font * len(text) + 2, 4), font
+
+
 def _labels(diagram, lay, drawn, canvas, colour_of, stroke) -> list[str]:
+    """Face, crossing and edge names (in this order: the least room first), each where it meets no
+    other label, no strand and no crossing (the first such place about its face's point, in the
+    corners of its crossing, or beside its edge; the first candidate when none is free)."""
     out = []
     font = 11
-    for edge in sorted(drawn.curves):
-        pts = [canvas(p) for p in sample(drawn.curves[edge])]
-        (mx, my), (tx, ty) = _middle(pts)
-        # beside the arrow, on the strand's left in the picture
-        off = stroke * 2 + font * 0.75
-        x, y = mx + ty * off, my - tx * off
-        out.append(f'<text class="label-edge" data-edge="{edge}" x="{_num(x)}" y="{_num(y + font * 0.35)}" '
-                   f'font-family="sans-serif" font-size="{font}" text-anchor="middle" '
-                   f'fill="{colour_of[diagram.component_of(edge)]}">{edge}</text>')
-    for crossing, point in sorted(lay.crossings.items()):
-        # in the corner between the under-strand's arrival and the next dart
-        d0, d1 = drawn.directions[(crossing, 0)], drawn.directions[(crossing, 1)]
-        bx, by = d0[0] + d1[0], d0[1] + d1[1]
-        norm = math.hypot(bx, by) or 1.0
-        x, y = canvas(point)
-        off = stroke * 2 + font * 0.9
-        x, y = x + off * bx / norm, y - off * by / norm
-        out.append(f'<g class="label-crossing" data-crossing="{crossing}"><circle cx="{_num(x)}" cy="{_num(y)}" '
-                   f'r="{_num(font * 0.72)}" fill="#ffffff" stroke="#333333" stroke-width="0.8"/>'
-                   f'<text x="{_num(x)}" y="{_num(y + font * 0.33)}" font-family="sans-serif" font-size="{font - 2}" '
-                   f'text-anchor="middle" fill="#222222" font-weight="bold">{crossing}</text></g>')
+    lines = {edge: [canvas(p) for p in sample(drawn.curves[edge])] for edge in drawn.curves}
+    crossing_points = {c: canvas(p) for c, p in lay.crossings.items()}
+    room = _Room(list(lines.values()), list(crossing_points.values()), stroke)
     root = outer_face(diagram)
     for face, point in sorted(lay.face_points.items()):
         cycles = diagram.faces[face]
@@ -501,9 +555,47 @@ def _labels(diagram, lay, drawn, canvas, colour_of, stroke) -> list[str]:
             polygon = _cycle_points(diagram, cycles[0], drawn.curves)
             point, _ = inscribed_disk(polygon[::3] if len(polygon) > 60 else polygon, point, rounds=2)
         x, y = canvas(point)
+        step = font * 0.9
+        candidates = [(x, y)] + [(x + dx * step, y + dy * step) for dx, dy in
+                                 ((0, 1), (0, -1), (1, 0), (-1, 0), (1, 1), (-1, 1), (1, -1), (-1, -1))]
+        # where the face is too small for a label clear of its strands: clear of the other labels at least
+        near = [(x + dx * step * f, y + dy * step * f) for f in (0.35, 0.7) for dx, dy in
+                ((0, 1), (0, -1), (1, 0), (-1, 0))]
+        x, y = room.place(candidates, label_size(str(face), font + 1), near=[(x, y)] + near)
         out.append(f'<text class="label-face" data-face="{face}" x="{_num(x)}" y="{_num(y + font * 0.35)}" '
                    f'font-family="serif" font-style="italic" font-size="{font + 1}" text-anchor="middle" '
                    f'fill="#777777">{face}</text>')
+    radius = font * 0.72
+    for crossing, point in sorted(lay.crossings.items()):
+        # in a corner of the crossing, the one between the under-strand's arrival and the next dart first
+        x, y = crossing_points[crossing]
+        corners = []
+        for k in range(4):
+            d0, d1 = drawn.directions[(crossing, k)], drawn.directions[(crossing, (k + 1) % 4)]
+            bx, by = d0[0] + d1[0], d0[1] + d1[1]
+            norm = math.hypot(bx, by) or 1.0
+            corners.append((bx / norm, by / norm))
+        candidates = [(x + off * bx, y - off * by) for off in (stroke * 2 + font * 0.9, stroke * 2 + font * 1.3)
+                      for bx, by in corners]
+        candidates += [(x + off * bx, y - off * by) for off in (stroke * 2 + font * 1.8,) for bx, by in corners]
+        cx, cy = room.place(candidates, (2 * radius, 2 * radius), near=candidates)
+        out.append(f'<g class="label-crossing" data-crossing="{crossing}"><circle cx="{_num(cx)}" cy="{_num(cy)}" '
+                   f'r="{_num(radius)}" fill="#ffffff" stroke="#333333" stroke-width="0.8"/>'
+                   f'<text x="{_num(cx)}" y="{_num(cy + font * 0.33)}" font-family="sans-serif" font-size="{font - 2}" '
+                   f'text-anchor="middle" fill="#222222" font-weight="bold">{crossing}</text></g>')
+    for edge in sorted(drawn.curves):
+        pts = lines[edge]
+        size = label_size(str(edge), font)
+        candidates = []
+        for fraction in (0.5, 0.38, 0.62, 0.28, 0.72):
+            (mx, my), (tx, ty) = _at_fraction(pts, fraction)
+            for side in (1, -1):  # on the strand's left in the picture first
+                for off in (stroke * 2 + font * 0.75, stroke * 2 + font * 1.2):
+                    candidates.append((mx + side * ty * off, my - side * tx * off))
+        x, y = room.place(candidates, size, near=candidates)
+        out.append(f'<text class="label-edge" data-edge="{edge}" x="{_num(x)}" y="{_num(y + font * 0.35)}" '
+                   f'font-family="sans-serif" font-size="{font}" text-anchor="middle" '
+                   f'fill="{colour_of[diagram.component_of(edge)]}">{edge}</text>')
     return out
 
 
