@@ -66,7 +66,8 @@ def read_svg(text: str) -> dict:
                 "points": points, "closed": closed, "component": int(element.get("data-component")),
                 "tail": element.get("data-tail"), "head": element.get("data-head"),
             }
-            colours[edge] = element.get("stroke")
+            # a component's style is its colour and its dash pattern (past the palette, hues repeat dashed)
+            colours[edge] = (element.get("stroke"), element.get("stroke-dasharray") is not None)
             stroke = float(element.get("stroke-width"))
         elif cls == "arrow":
             arrows[int(element.get("data-edge"))] = parse_path(element.get("d"))[0]
@@ -154,7 +155,7 @@ def check_drawing(diagram, text: str, visible: bool = True) -> dict:
         colour_of.setdefault(diagram.component_of(edge), set()).add(colour)
     assert all(len(c) == 1 for c in colour_of.values()), "a component drawn in several colours"
     if len(colour_of) <= 8:
-        assert len({next(iter(c)) for c in colour_of.values()}) == len(colour_of), "two components share a colour"
+        assert len({next(iter(c)) for c in colour_of.values()}) == len(colour_of), "two components share a style"
     stroke = read["stroke"] or 1.0
 
     # the crossing points, from the over-strand
