@@ -485,11 +485,22 @@ def _at_fraction(points: list[tuple[float, float]], fraction: float):
 class _Room:
     """Where labels already are, and the strands: a new label goes where it meets neither."""
 
+    #: side of the grid cells the strands' segments are filed under (canvas units)
+    CELL = 24.0
+
     def __init__(self, lines: list[list[tuple[float, float]]], points: list[tuple[float, float]], clearance: float):
         self.boxes: list[tuple[float, float, float, float]] = []
         self.points = points  # crossing points a label must not cover
-        self.lines = lines
         self.clearance = clearance
+        self.grid: dict[tuple[int, int], list] = {}  # cell -> the segments that pass near it
+        for line in lines:
+            for a, b in zip(line, line[1:]):
+                for cell in self._cells((min(a[0], b[0]), min(a[1], b[1]), max(a[0], b[0]), max(a[1], b[1]))):
+                    self.grid.setdefault(cell, []).append((a, b))
+
+    def _cells(self, box):
+        x0, y0, x1, y1 = (int(math.floor(v / self.CELL)) for v in box)
+        return [(i, j) for i in range(x0, x1 + 1) for j in range(y0, y1 + 1)]
 
     def free(self, box, strands: bool = True) -> bool:
         x0, y0, x1, y1 = box
@@ -500,8 +511,9 @@ class _Room:
         pad = self.clearance
         if any(x0 - pad < px < x1 + pad and y0 - pad < py < y1 + pad for px, py in self.points):
             return False
-        return not any(_segment_meets_box(a, b, (x0 - pad, y0 - pad, x1 + pad, y1 + pad))
-                       for line in self.lines for a, b in zip(line, line[1:]))
+        padded = (x0 - pad, y0 - pad, x1 + pad, y1 + pad)
+        return not any(_segment_meets_box(a, b, padded) for cell in self._cells(padded)
+                       for a, b in self.grid.get(cell, ()))
 
     def place(self, candidates, size, near=None) -> tuple[float, float]:
         """The first candidate centre whose box meets no label and no strand; else, among the
