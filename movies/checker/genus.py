@@ -186,6 +186,7 @@ def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -
         return search.certify(after, target, search_budget).certified
 
     least = max(b.bound for b in search_genus_bounds(start, None if to is None else target))
+    slice_tries = 0
     if most_genus is None:
         most_genus = max(3, least + 1)
     for genus in range(1, most_genus + 1):
@@ -213,6 +214,11 @@ def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -
                 if genus >= least and reaches(after) and _write(report, knot, chain, genus, search_budget, to):
                     report.seconds = time.perf_counter() - started
                     return report
+                if (genus >= least and to is None and slice_tries < MOST_SLICE_ENDS
+                        and _slice_end(report, knot, chain, genus, after, search_budget)):
+                    report.seconds = time.perf_counter() - started
+                    return report
+                slice_tries += _looks_slice(after) if to is None and genus >= least else 0
                 det = abs(determinant(after))
                 scored.append(((abs(signature(after) - target_signature) // 2, abs(det - target_det),
                                 after.crossing_count()), len(scored), chain, after))
@@ -252,6 +258,46 @@ def _crossing_changes(start: Diagram, count: int, started: float, budget: float)
             yield chain, frame
         if time.perf_counter() - started > budget:
             return
+
+
+#: how many knots left by the genus-one pieces a search tries to finish with a ribbon disk
+MOST_SLICE_ENDS = 12
+#: seconds of ribbon search for each
+SLICE_END_BUDGET = 2.0
+
+
+def _looks_slice(knot: Diagram) -> bool:
+    """Whether the cheap invariants allow a knot to be slice: signature 0 and a square determinant
+    (Fox–Milnor); a knot with crossings only (the unknot is reached the other way)."""
+    if not knot.crossings or knot.component_count() != 1 or knot.crossing_count() > 14 or signature(knot) != 0:
+        return False
+    det = abs(determinant(knot))
+    return round(det ** 0.5) ** 2 == det
+
+
+def _slice_end(report: SearchResult, knot: str, chain: tuple[MoveRecord, ...], genus: int, after: Diagram,
+               budget: float) -> bool:
+    """Finish at a slice knot instead of the unknot: the genus-one pieces, then a ribbon disk for
+    the knot they leave (found by the ribbon search), written as one movie and checked."""
+    if not _looks_slice(after):
+        return False
+    from movies.checker.ribbon import find_ribbon_disk
+
+    spec = "pd[" + ",".join("[" + ",".join(map(str, labels)) + "]" for labels in after.crossings.values()) + "]"
+    disk = find_ribbon_disk(spec, budget=SLICE_END_BUDGET, search_budget=min(budget, 1.0))
+    if disk.verdict != "verified" or not disk.movie:
+        return False
+    steps = [line for line in disk.movie.splitlines()
+             if line.strip() and not line.startswith(("title", "start", "surface", "%"))]
+    lines = [f"title a surface of genus {genus} for {knot}, found by the band search", f"start {knot}"]
+    lines += [str(r) for r in chain] + [f"isotopic to {spec}"] + steps + [f"surface connected, genus {genus}"]
+    text = "\n".join(lines) + "\n"
+    checked = check_movie(text, budget=budget)
+    if checked.verdict != "verified":
+        return False
+    report.genus, report.movie, report.verdict = genus, text, checked.verdict
+    report.bands = tuple(map(str, chain)) + tuple(disk.bands)
+    return True
 
 
 def _write(report: SearchResult, knot: str, chain: tuple[MoveRecord, ...], genus: int, budget: float,

@@ -35,6 +35,16 @@ def test_fox_milnor_certifies_genus_one_where_s_and_the_signature_vanish(capsys)
     assert data["best_lower_bound"] == 1 and data["four_genus_certified"] == 1 == int(table_row("4_1")["smooth_four_genus"])
 
 
+def test_a_genus_one_piece_may_end_at_a_slice_knot_instead_of_the_unknot():
+    # KnotInfo column smooth_four_genus: 9_37 has 4-genus 1; no crossing change of its diagram reaches the unknot
+    # in one genus-one piece, but one reaches a ribbon knot, and the movie goes on with its ribbon disk
+    found = find_surface("9_37", budget=60)
+    result = check_movie(found.movie)
+    assert result.verified and found.genus == 1 == int(table_row("9_37")["smooth_four_genus"])
+    assert result.surface.connected and result.surface.components[0].genus == 1
+    assert any(line.startswith("isotopic to pd[") for line in found.movie.splitlines())
+
+
 def test_a_slice_knot_gets_a_disk_from_find_surface(capsys):
     # KnotInfo column smooth_four_genus: 6_1 has 4-genus 0; no invariant rules a disk out, so the ribbon search runs
     # first, and the disk it finds is checked and certified
@@ -66,9 +76,9 @@ def test_a_search_reports_progress_and_stops_on_ctrl_c():
 
     import movies.checker.genus as genus_module
 
-    # a search that runs long enough to report (9_37 has no crossing change to the unknot at genus 1); the first
+    # a search that runs long enough to report (9_48: no genus-one piece found within half a minute); the first
     # report stops it
-    found = genus_module.find_surface("9_37", budget=60, progress=interrupt)
-    assert found.why == "stopped by Ctrl-C before a surface was found" and lines[0].startswith("surface search for 9_37")
+    found = genus_module.find_surface("9_48", budget=60, progress=interrupt)
+    assert found.why == "stopped by Ctrl-C before a surface was found" and lines[0].startswith("surface search for 9_48")
     found = find_ribbon_disk("12a_631", budget=60, progress=interrupt)
     assert found.why == "stopped by Ctrl-C before a ribbon disk was found"
