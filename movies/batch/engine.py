@@ -73,18 +73,25 @@ def run_batch(items: list[Item], task: str, options: dict, store: ResultStore, s
     bar = _Progress(len(pending), log)
     futures = []
     try:
-        size = chunk_size(len(pending), len(client.scheduler_info().get("workers", {})) or 1)
+        size = chunk_size(len(pending), len(client.scheduler_info().get("workers", {})) or 1) \
+            if task in QUICK_TASKS else 1
         chunks = [pending[i:i + size] for i in range(0, len(pending), size)]
         futures = client.map(_run_chunk, chunks, task=task, options=options, seconds=seconds, version=version,
                              canonical=canonical, pure=False)
-        from distributed import as_completed
+        from distributed import wait
 
-        for future in as_completed(futures):
-            rows = future.result()
-            waiting.extend(rows)
-            for row in rows:
-                outcome.counts[row.status] = outcome.counts.get(row.status, 0) + 1
-            bar.advance(len(rows))
+        running = set(futures)
+        while running:
+            try:  # a second at most, so that Ctrl-C is seen while long items run
+                finished, running = wait(running, timeout=1, return_when="FIRST_COMPLETED")
+            except TimeoutError:
+                continue
+            for future in finished:
+                rows = future.result()
+                waiting.extend(rows)
+                for row in rows:
+                    outcome.counts[row.status] = outcome.counts.get(row.status, 0) + 1
+                bar.advance(len(rows))
             if len(waiting) >= COMMIT_ROWS or time.monotonic() - last_commit >= COMMIT_SECONDS:
                 store.write(waiting)
                 waiting, last_commit = [], time.monotonic()
@@ -114,6 +121,8 @@ def chunk_size(items: int, workers: int) -> int:
 
 #: at most this many items in one Dask task
 CHUNK_MOST = 25
+#: the tasks whose items take milliseconds, run in chunks; the searches and checks run one item a task
+QUICK_TASKS = ("invariants",)
 
 
 def _run_chunk(items: list[Item], task: str, options: dict, seconds: float, version: str,

@@ -186,3 +186,19 @@ def test_a_running_scheduler_with_two_workers_and_one_killed(tmp_path):
         for process in workers + [scheduler]:
             process.kill()
             process.wait()
+
+
+def test_ctrl_c_stops_a_batch_promptly_while_long_items_run(tmp_path):
+    # each item takes far longer than the test waits; the client must still see Ctrl-C within a second or two
+    items = tmp_path / "slow.txt"
+    items.write_text("torus(7, 8)\ntorus(7, 8) # 3_1\n", encoding="utf-8")
+    db = tmp_path / "r.sqlite"
+    process = subprocess.Popen([sys.executable, "-m", "movies", "batch", "run", "--diagrams", str(items), "--task",
+                                "invariants", "--db", str(db), "--workers", "1", "--time-limit", "300"], cwd=ROOT,
+                               stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True)
+    time.sleep(8)  # the cluster is up and the first item running
+    process.send_signal(signal.SIGINT)
+    started = time.monotonic()
+    out, err = process.communicate(timeout=60)
+    assert process.returncode == 130 and "to resume" in err, (out, err)
+    assert time.monotonic() - started < 20
