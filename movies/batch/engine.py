@@ -100,12 +100,21 @@ def run_batch(items: list[Item], task: str, options: dict, store: ResultStore, s
     finally:
         store.write(waiting)
         bar.close()
-        for future in futures:
-            future.cancel()
-        client.close()
-        if cluster is not None:
-            cluster.close()
+        _shut(client, cluster, futures, quickly=outcome.interrupted)
     return outcome
+
+
+def _shut(client, cluster, futures, quickly: bool) -> None:
+    """Cancel what is left and close the client and the local cluster; after Ctrl-C without waiting
+    long for workers busy with an item (the local workers are daemonic processes, stopped when this
+    one ends, and each item's forked child dies with its worker)."""
+    try:
+        client.cancel(futures)
+        client.close(timeout=5 if quickly else None)
+        if cluster is not None:
+            cluster.close(timeout=5 if quickly else None)
+    except (TimeoutError, OSError, RuntimeError):  # pragma: no cover - a worker that would not stop in time
+        pass
 
 
 def chunk_size(items: int, workers: int) -> int:
@@ -144,15 +153,11 @@ def _connect(scheduler: str | None, workers: int | None):
     """A Dask client: to the scheduler at ``scheduler``, or to a new local cluster of processes."""
     import logging
 
-    import dask
-
     try:
         from distributed import Client, LocalCluster
     except ImportError as err:  # pragma: no cover - installed with the program
         raise InputError(f"a batch runs on Dask, which is not installed here ({err})") from None
     logging.getLogger("distributed").setLevel(logging.ERROR)
-    # the workers fork a child per item (the time limit); daemonic worker processes may not
-    dask.config.set({"distributed.worker.daemon": False})
     if scheduler is not None:
         try:
             return Client(scheduler, timeout="20s"), None

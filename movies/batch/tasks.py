@@ -95,6 +95,7 @@ def run_item(task: str, text: str, options: dict, seconds: float) -> tuple[str, 
     pid = os.fork()
     if pid == 0:  # the child: compute, send, and leave without running anything of the parent's
         os.close(read_end)
+        _die_with_parent()
         try:
             payload = json.dumps(_guarded(task, text, options)).encode()
             view = memoryview(payload)
@@ -123,6 +124,17 @@ def run_item(task: str, text: str, options: dict, seconds: float) -> tuple[str, 
         return "error", None, "the computation ended without a result (it ran out of memory or was killed)"
     status, result, reason = json.loads(b"".join(chunks))
     return status, result, reason
+
+
+def _die_with_parent() -> None:
+    """Ask Linux to stop this process when the one that forked it ends (a worker killed or shut
+    down does not leave its item computing); elsewhere nothing happens."""
+    try:
+        import ctypes
+
+        ctypes.CDLL(None, use_errno=True).prctl(1, signal.SIGKILL)  # PR_SET_PDEATHSIG
+    except (OSError, AttributeError):  # pragma: no cover - not Linux
+        pass
 
 
 #: the tasks whose modules and grammars this process has loaded (each forked child starts from them)
