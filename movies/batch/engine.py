@@ -78,13 +78,13 @@ def run_batch(items: list[Item], task: str, options: dict, store: ResultStore, s
         chunks = [pending[i:i + size] for i in range(0, len(pending), size)]
         futures = client.map(_run_chunk, chunks, task=task, options=options, seconds=seconds, version=version,
                              canonical=canonical, pure=False)
-        from distributed import wait
+        from distributed import as_completed
 
-        running = set(futures)
-        while running:
-            try:  # a second at most, so that Ctrl-C is seen while long items run
-                finished, running = wait(running, timeout=1, return_when="FIRST_COMPLETED")
-            except TimeoutError:
+        arriving = as_completed(futures)
+        while not arriving.is_empty():
+            finished = arriving.next_batch(block=False)
+            if not finished:  # the main thread sleeps in short naps, so that Ctrl-C is seen while long items run
+                time.sleep(0.05)
                 continue
             for future in finished:
                 rows = future.result()
