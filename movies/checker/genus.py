@@ -18,6 +18,7 @@ the bands become a movie that :func:`movies.checker.replay.check_movie` must ver
 
 from __future__ import annotations
 
+import math
 import time
 
 from movies.bounds.verdicts import search_genus_bounds
@@ -272,7 +273,7 @@ def _looks_slice(knot: Diagram) -> bool:
     if not knot.crossings or knot.component_count() != 1 or knot.crossing_count() > 14 or signature(knot) != 0:
         return False
     det = abs(determinant(knot))
-    return round(det ** 0.5) ** 2 == det
+    return math.isqrt(det) ** 2 == det
 
 
 def _slice_end(report: SearchResult, knot: str, chain: tuple[MoveRecord, ...], genus: int, after: Diagram,

@@ -125,15 +125,7 @@ def _trimmed(curve: list[tuple], gaps: tuple[float, float]) -> list[tuple]:
 
 def _middle(points: list[tuple[float, float]]) -> tuple[tuple[float, float], tuple[float, float]]:
     """The point halfway along a polyline, and the unit tangent there."""
-    lengths = [math.hypot(points[i + 1][0] - points[i][0], points[i + 1][1] - points[i][1]) for i in range(len(points) - 1)]
-    half = sum(lengths) / 2
-    for i, length in enumerate(lengths):
-        if half <= length and length > 0:
-            f = half / length
-            p, q = points[i], points[i + 1]
-            return (p[0] + f * (q[0] - p[0]), p[1] + f * (q[1] - p[1])), ((q[0] - p[0]) / length, (q[1] - p[1]) / length)
-        half -= length
-    return points[-1], (1.0, 0.0)
+    return _at_fraction(points, 0.5)
 
 
 def _cycle_points(diagram: Diagram, cycle: tuple[Side, ...], curves: dict[int, list[tuple]]) -> list[tuple[float, float]]:

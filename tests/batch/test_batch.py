@@ -37,6 +37,19 @@ def _table(path) -> list[tuple]:
                                  "reason FROM results"))
 
 
+def _wait_for_rows(path, seconds: float = 120) -> None:
+    """Wait until a running batch has written some results to ``path``."""
+    deadline = time.monotonic() + seconds
+    while time.monotonic() < deadline:
+        time.sleep(0.1)
+        try:
+            with sqlite3.connect(path) as db:
+                if db.execute("SELECT count(*) FROM results").fetchone()[0] > 0:
+                    return
+        except sqlite3.Error:
+            continue
+
+
 def _free_port() -> int:
     with socket.socket() as s:
         s.bind(("127.0.0.1", 0))
@@ -128,15 +141,7 @@ def test_an_interrupted_batch_resumes_to_the_same_database(tmp_path):
     _movies(*args, "--db", str(whole))
     process = subprocess.Popen([sys.executable, "-m", "movies", *args, "--db", str(parts)], cwd=ROOT,
                                stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True, start_new_session=True)
-    deadline = time.monotonic() + 120
-    while time.monotonic() < deadline:  # wait until some results are written, then press Ctrl-C
-        time.sleep(0.2)
-        try:
-            with sqlite3.connect(parts) as db:
-                if db.execute("SELECT count(*) FROM results").fetchone()[0] > 0:
-                    break
-        except sqlite3.Error:
-            continue
+    _wait_for_rows(parts)  # then press Ctrl-C
     os.killpg(process.pid, signal.SIGINT)  # as Ctrl-C on a terminal: to the whole process group, workers too
     out, err = process.communicate(timeout=120)
     assert process.returncode == 130, (out, err)
@@ -166,15 +171,7 @@ def test_a_running_scheduler_with_two_workers_and_one_killed(tmp_path):
                 "--scheduler", address]
         process = subprocess.Popen([sys.executable, "-m", "movies", *args], cwd=ROOT, stdout=subprocess.PIPE,
                                    stderr=subprocess.PIPE, text=True)
-        deadline = time.monotonic() + 120
-        while time.monotonic() < deadline:
-            time.sleep(0.1)
-            try:
-                with sqlite3.connect(killed) as db:
-                    if db.execute("SELECT count(*) FROM results").fetchone()[0] > 0:
-                        break
-            except sqlite3.Error:
-                continue
+        _wait_for_rows(killed)
         workers[0].kill()
         out, err = process.communicate(timeout=300)
         assert process.returncode == 0, err

@@ -110,6 +110,18 @@ def test_twisting_commutes_with_every_step_that_keeps_off_the_handles():
     assert checked >= 30, checked
 
 
+def _checked_random_movie(name, link, records):
+    """Check the movie of ``records`` from ``name`` with ``link``'s handle: it must be verified and
+    break no inequality (a broken one would raise inside check_movie)."""
+    gate = " ".join(map(str, link.gates[0].edges))
+    text = "\n".join([f"start {name} with handle across {gate} from face {link.gates[0].start_face(link.diagram)}"]
+                     + [str(r) for r in records])
+    result = check_movie(text)
+    assert result.verdict == "verified", (text, [f.message for f in result.findings])
+    assert all(b.holds for b in result.bounds.bounds)
+    return result, text
+
+
 def test_random_verified_handle_movies_never_break_an_inequality():
     # a verified movie whose bounds failed would raise an internal inconsistency inside check_movie
     rng = random.Random(41)
@@ -120,12 +132,7 @@ def test_random_verified_handle_movies_never_break_an_inequality():
         if link is None:
             continue
         records, _ = random_steps(link, rng, 3)
-        gate = " ".join(map(str, link.gates[0].edges))
-        text = "\n".join([f"start {name} with handle across {gate} from face {link.gates[0].start_face(link.diagram)}"]
-                         + [str(r) for r in records])
-        result = check_movie(text)
-        assert result.verdict == "verified", (text, [f.message for f in result.findings])
-        assert all(b.holds for b in result.bounds.bounds)
+        _checked_random_movie(name, link, records)
         verified += 1
     assert verified >= 4, verified
 
@@ -414,12 +421,7 @@ def test_random_steps_on_the_strands_through_a_handle_are_steps_between_the_appr
         if link is None:
             continue
         records, _ = random_steps(link, rng, 4, most_crossings=9, on_gates=True)
-        gate = " ".join(map(str, link.gates[0].edges))
-        text = "\n".join([f"start {name} with handle across {gate} from face {link.gates[0].start_face(link.diagram)}"]
-                         + [str(r) for r in records])
-        result = check_movie(text)
-        assert result.verdict == "verified", (text, [f.message for f in result.findings])
-        assert all(b.holds for b in result.bounds.bounds)
+        result, text = _checked_random_movie(name, link, records)
         for number, record in enumerate(records):
             before = result.handle_frames[number]
             touched += bool(set(perform(record, before.diagram).places.edges) & set(before.gates[0].edges))

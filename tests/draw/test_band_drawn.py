@@ -34,17 +34,24 @@ def _crosses(p, q, polyline) -> bool:
                for a, b in zip(polyline, polyline[1:]))
 
 
-@pytest.mark.parametrize("name", ["square-knot-ribbon", "8_20-ribbon", "trefoil-concordance", "5_2-to-5_1-genus-one"])
-def test_every_band_across_a_face_is_drawn_between_its_edges(name):
+def _steps_and_frames(name: str, kind: str):
+    """(step index, record, the SVG of the frame it acts on) for each step of ``kind`` of an
+    example movie, from its HTML report."""
     result = check_movie(EXAMPLES / f"{name}.movie")
     page = movie_html(result, source=name)
     frames = re.findall(r'<svg xmlns="http://www.w3.org/2000/svg" class="diagram".*?</svg>', page, re.S)
-    bands = 0
     for index, statement in enumerate(result.movie.steps):
-        record = statement.record
-        if record is None or record.kind != "band" or record.path:
+        if statement.record is not None and statement.record.kind == kind:
+            yield index, statement.record, frames[index]
+
+
+@pytest.mark.parametrize("name", ["square-knot-ribbon", "8_20-ribbon", "trefoil-concordance", "5_2-to-5_1-genus-one"])
+def test_every_band_across_a_face_is_drawn_between_its_edges(name):
+    bands = 0
+    for index, record, frame in _steps_and_frames(name, "band"):
+        if record.path:
             continue
-        root = ET.fromstring(frames[index])
+        root = ET.fromstring(frame)
         strands, core = {}, None
         stroke = None
         for element in root.iter():
@@ -70,15 +77,9 @@ def test_every_band_across_a_face_is_drawn_between_its_edges(name):
 
 @pytest.mark.parametrize("name", ["5_1-unknotted-by-twists", "mirror-5_1-least-genus-in-a-blowup"])
 def test_every_twist_step_is_drawn_as_a_box_across_its_strands(name):
-    result = check_movie(EXAMPLES / f"{name}.movie")
-    page = movie_html(result, source=name)
-    frames = re.findall(r'<svg xmlns="http://www.w3.org/2000/svg" class="diagram".*?</svg>', page, re.S)
     twists = 0
-    for index, statement in enumerate(result.movie.steps):
-        record = statement.record
-        if record is None or record.kind != "twist":
-            continue
-        root = ET.fromstring(frames[index])
+    for index, record, frame in _steps_and_frames(name, "twist"):
+        root = ET.fromstring(frame)
         strands, box = {}, None
         for element in root.iter():
             if element.get("class") == "strand":
