@@ -22,7 +22,7 @@ from movies.bounds.inequalities import Bound, GenusBound, best_genus_bound, four
 from movies.diagram.constructors import mirror
 from movies.diagram.model import Diagram
 from movies.surface.tracker import Surface
-from movies.homology.khovanov import bar_natan_complex, s_from_complex
+from movies.homology.khovanov import S_DEGREES, bar_natan_complex, s_from_complex
 from movies.homology.links import link_s_values
 from movies.homology.rings import parse_field
 from movies.invariants.signature import levine_tristram_bound, signature
@@ -56,7 +56,7 @@ def s_values(diagram: Diagram) -> dict[str, int]:
         return {f: 1 for f in FIELDS}
     if diagram.component_count() != 1:
         return link_s_values(diagram, FIELDS)
-    final = bar_natan_complex(diagram, "Z")  # one scan over Z serves every field
+    final = bar_natan_complex(diagram, "Z", degrees=S_DEGREES)  # one scan over Z serves every field
     return {f: s_from_complex(final, parse_field(f).p) for f in FIELDS}
 
 

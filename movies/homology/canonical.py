@@ -83,7 +83,7 @@ def checkerboard(diagram: Diagram) -> dict[int, int]:
     return colour
 
 
-def canonical_complex(diagram: Diagram, progress=None) -> CanonicalComplex:
+def canonical_complex(diagram: Diagram, progress=None, degrees=None) -> CanonicalComplex:
     """The simplified complex over Z of a diagram with crossings, and α_o carried into it.
 
     Parameters
@@ -93,6 +93,9 @@ def canonical_complex(diagram: Diagram, progress=None) -> CanonicalComplex:
         into its pieces first).
     progress : callable, optional
         Called with (crossings added, total) after each crossing.
+    degrees : (int, int), optional
+        Only this range of homological degrees of the complex (s needs -1 to 1); see
+        :func:`movies.homology.scanning.scan_complex`.
 
     Returns
     -------
@@ -111,9 +114,10 @@ def canonical_complex(diagram: Diagram, progress=None) -> CanonicalComplex:
     colour = checkerboard(diagram)
     minus_h = frozenset(edge for edge in diagram.edges() if colour[diagram.faces_beside(edge)[0]])
     chain = CarriedClass(smoothing, minus_h)
-    cx = scan_complex(pd, Ring("Z", 0), scan_order(pd), progress, carried=[chain])
     n_plus = sum(1 for s in diagram.signs.values() if s > 0)
     n_minus = len(diagram.signs) - n_plus
+    window = None if degrees is None else (degrees[0] + n_minus, degrees[1] + n_minus)
+    cx = scan_complex(pd, Ring("Z", 0), scan_order(pd), progress, carried=[chain], degrees=window)
     final = finish(cx, n_plus, n_minus)
     q = diagram.writhe() - diagram.seifert_circle_count()
     cycle = final.carried[0]
@@ -198,4 +202,4 @@ def canonical_s(diagram: Diagram, field: str = "Q") -> int:
     >>> canonical_s(parse_diagram("L5a1{0}")), canonical_s(parse_diagram("mirror(L5a1{0})"))
     (-1, 1)
     """
-    return s_from_canonical(canonical_complex(diagram), field)
+    return s_from_canonical(canonical_complex(diagram, degrees=(-1, 1)), field)

@@ -41,9 +41,14 @@ __all__ = [
     "rasmussen_s",
     "poincare_polynomial",
     "bar_natan_complex",
+    "S_DEGREES",
 ]
 
 Progress = Callable[[int, int], None]
+
+#: The homological degrees s is read from: Bar-Natan homology in degree 0 needs the complex in
+#: degrees -1, 0 and 1 only, and the scan may leave out the rest (see ``scan_complex``).
+S_DEGREES = (-1, 1)
 
 
 def _diagram(diagram) -> Diagram:
@@ -70,15 +75,22 @@ def _with_loops(final: FinalComplex, loops: int) -> FinalComplex:
     return FinalComplex(gens, entries)
 
 
-def bar_natan_complex(diagram, field: str = "Z", progress: Progress | None = None) -> FinalComplex:
+def bar_natan_complex(diagram, field: str = "Z", progress: Progress | None = None,
+                      degrees: tuple[int, int] | None = None) -> FinalComplex:
     """The simplified Bar-Natan complex of a diagram, over Z (also for Q) or F_p.
 
     Parameters: a :class:`~movies.diagram.model.Diagram` (or a PD code); ``field``; an optional
-    ``progress(done, total)`` callback. Returns a :class:`~movies.homology.scanning.FinalComplex`.
+    ``progress(done, total)`` callback; ``degrees``, a pair ``(lo, hi)`` of homological degrees
+    when only that part of the complex is wanted (homology is then right in ``lo + 1 .. hi - 1``;
+    :data:`S_DEGREES` for s). Returns a :class:`~movies.homology.scanning.FinalComplex`.
 
     >>> from movies.diagram.pd import from_pd
     >>> bar_natan_complex(from_pd([[4, 1, 3, 2], [2, 3, 1, 4]])).generators
     [(-2, -6), (-2, -4), (0, -2), (0, 0)]
+    >>> bar_natan_complex(from_pd([[4, 1, 3, 2], [2, 3, 1, 4]]), degrees=(-1, 1)).generators
+    [(-1, -4), (-1, -2), (0, -2), (0, 0)]
+
+    (At the ends of a window objects stay that the degrees left out would have cancelled.)
     """
     d = _diagram(diagram)
     ring = parse_field(field)
@@ -86,7 +98,8 @@ def bar_natan_complex(diagram, field: str = "Z", progress: Progress | None = Non
         ring = Ring("Z", 0)
     pd = [tuple(c) for c in d.pd_code()]
     n_plus, n_minus = _signs(d)
-    cx = scan_complex(pd, ring, scan_order(pd), progress)
+    window = None if degrees is None else (degrees[0] + n_minus, degrees[1] + n_minus)
+    cx = scan_complex(pd, ring, scan_order(pd), progress, degrees=window)
     return _with_loops(finish(cx, n_plus, n_minus), d.loop_count())
 
 
@@ -191,7 +204,7 @@ def rasmussen_s(diagram, field: str = "Q", progress: Progress | None = None) -> 
     ring = parse_field(field)
     if ring.name == "Z":
         raise FieldError("s is defined over a field: use 'Q' or 'F<p>'")
-    final = bar_natan_complex(d, "Z" if ring.name == "Q" else ring.name, progress)
+    final = bar_natan_complex(d, "Z" if ring.name == "Q" else ring.name, progress, S_DEGREES)
     return s_from_complex(final, ring.p)
 
 

@@ -24,7 +24,7 @@ from movies.diagram.model import Diagram
 from movies.homology.canonical import canonical_complex, s_from_canonical
 from movies.homology.errors import FieldError
 from movies.homology.graded import bar_natan_module
-from movies.homology.khovanov import bar_natan_complex
+from movies.homology.khovanov import S_DEGREES, bar_natan_complex
 from movies.homology.rings import parse_field
 
 __all__ = ["link_s", "link_s_values", "free_part_s", "split_pieces"]
@@ -57,7 +57,7 @@ def free_part_s(piece: Diagram, field: str = "Q") -> int | None:
     (1, None)
     """
     p = parse_field(field).p
-    free = bar_natan_module(bar_natan_complex(piece, "Z"), p, degrees={0})["free"]
+    free = bar_natan_module(bar_natan_complex(piece, "Z", degrees=S_DEGREES), p, degrees={0})["free"]
     degrees = sorted(q for (h, q), rank in free.items() if h == 0 for _ in range(rank))
     if len(degrees) == 2 and degrees[1] - degrees[0] == 2:
         return degrees[0] + 1
@@ -92,7 +92,7 @@ def link_s_values(diagram: Diagram, fields=("Q",)) -> dict[str, int]:
     for piece in pieces:
         if not piece.crossings:  # a crossingless circle: an unknot, s = 0
             continue
-        canonical = canonical_complex(piece)
+        canonical = canonical_complex(piece, degrees=S_DEGREES)
         for name in fields:
             totals[name] += s_from_canonical(canonical, name)
     return totals

@@ -480,10 +480,12 @@ class _Step:
         return found
 
 
-def add_crossing(cx: Complex, boundary: list, crossing: tuple) -> tuple[Complex, list]:
+def add_crossing(cx: Complex, boundary: list, crossing: tuple, window=None) -> tuple[Complex, list]:
     """The complex of the tangle with ``crossing`` added, delooped and simplified.
 
-    Parameters: the current complex, its boundary labels, the PD tuple of the crossing.
+    Parameters: the current complex, its boundary labels, the PD tuple of the crossing;
+    ``window``, a pair ``(lo, hi)``: only objects of homological degree ``lo <= h <= hi`` are made
+    (the rest of the complex is cut off; see :func:`scan_complex` for when that is exact).
     Returns (new complex, new boundary labels).
 
     >>> start = Complex(RING_Z); _ = start.add_object(0, (), 0)
@@ -493,10 +495,13 @@ def add_crossing(cx: Complex, boundary: list, crossing: tuple) -> tuple[Complex,
     """
     step = _Step(boundary, crossing)
     new = Complex(cx.ring)
-    ids: dict = {}  # (old id, smoothing) -> (first new id, number of configs)
+    lo, hi = window if window is not None else (None, None)
+    ids: dict = {}  # (old id, smoothing) -> first new id, for the objects kept
     for i in list(cx.m):
         h, m, q = cx.h[i], cx.m[i], cx.q[i]
         for s in (0, 1):
+            if window is not None and not lo <= h + s <= hi:
+                continue
             nm, closed = step.obj(m, s)
             first = None
             for config in range(1 << closed):
@@ -509,13 +514,17 @@ def add_crossing(cx: Complex, boundary: list, crossing: tuple) -> tuple[Complex,
         for j, morphism in row.items():
             m2 = cx.m[j]
             for s in (0, 1):
-                si, sj = ids[(i, s)], ids[(j, s)]
+                si, sj = ids.get((i, s)), ids.get((j, s))
+                if si is None or sj is None:
+                    continue
                 for pattern, c in morphism.items():
                     for (a, b), piece in step.horizontal(m1, m2, pattern, s).items():
                         new.add_to(si + a, sj + b, piece, c)
     for i in list(cx.m):
         sign = -1 if cx.h[i] % 2 else 1
-        s0, s1 = ids[(i, 0)], ids[(i, 1)]
+        s0, s1 = ids.get((i, 0)), ids.get((i, 1))
+        if s0 is None or s1 is None:
+            continue
         for (a, b), piece in step.vertical(cx.m[i]).items():
             new.add_to(s0 + a, s1 + b, piece, sign)
     for carried in cx.carried:
@@ -558,16 +567,28 @@ def _carry_across(carried: CarriedClass, cx: Complex, new: Complex, step: _Step,
     return CarriedClass(carried.smoothing, carried.minus_h, source, carried.q + s - closed, carried.h + s, coords)
 
 
-def scan_complex(pd, ring: Ring, order, progress=None, carried=()) -> Complex:
+def scan_complex(pd, ring: Ring, order, progress=None, carried=(), degrees=None) -> Complex:
     """The simplified complex of a PD code whose crossings are added in ``order``.
 
     Parameters: ``pd``, a list of PD 4-tuples (labels that occur once stay on the boundary);
     ``ring``; ``order``, crossing indices; ``progress(done, total)``, called after each crossing;
-    ``carried``, :class:`CarriedClass` chains to take along (they start on the one object).
-    Returns the :class:`Complex` of the resulting tangle.
+    ``carried``, :class:`CarriedClass` chains to take along (they start on the one object);
+    ``degrees``, a pair ``(lo, hi)`` of homological degrees before the shift ``[-n_-]``: only the
+    part of the final complex in those degrees is wanted.
+    Returns the :class:`Complex` of the resulting tangle (with ``degrees``, its part in them).
+
+    Why a window is exact: the degree-``d`` part of ``C ⊗ [X0 → X1]`` is made of ``C_d`` and
+    ``C_(d-1)`` only, and eliminating an isomorphism between degrees ``h`` and ``h + 1`` changes
+    only entries between those two degrees. So the complex cut to degrees ``[lo - r, hi]``, with
+    ``r`` crossings still to add, determines the final complex in ``[lo, hi]`` exactly, with
+    the same differentials (homology is right in ``lo + 1 .. hi - 1``). For s only degrees -1..1
+    matter, which for a positive braid keeps two degrees out of all of them.
 
     >>> scan_complex([(1, 5, 2, 4), (3, 1, 4, 6), (5, 3, 6, 2)], RING_Z, [0, 1, 2]).size()
     6
+    >>> cx = scan_complex([(1, 5, 2, 4), (3, 1, 4, 6), (5, 3, 6, 2)], RING_Z, [0, 1, 2], degrees=(-1, 1))
+    >>> sorted(cx.h.values())  # degree 1 keeps what degree 2 would have cancelled
+    [0, 0, 1, 1, 1, 1]
     """
     cx = Complex(ring)
     start = cx.add_object(0, (), 0)
@@ -575,7 +596,8 @@ def scan_complex(pd, ring: Ring, order, progress=None, carried=()) -> Complex:
         cx.carried.append(CarriedClass(chain.smoothing, chain.minus_h, coords={start: {0: 1}}))
     boundary: list = []
     for done, index in enumerate(order, start=1):
-        cx, boundary = add_crossing(cx, boundary, pd[index])
+        window = None if degrees is None else (degrees[0] - (len(order) - done), degrees[1])
+        cx, boundary = add_crossing(cx, boundary, pd[index], window)
         if progress is not None:
             progress(done, len(order))
     return cx
