@@ -88,9 +88,7 @@ def bar_natan_complex(diagram, field: str = "Z", progress: Progress | None = Non
     >>> bar_natan_complex(from_pd([[4, 1, 3, 2], [2, 3, 1, 4]])).generators
     [(-2, -6), (-2, -4), (0, -2), (0, 0)]
     >>> bar_natan_complex(from_pd([[4, 1, 3, 2], [2, 3, 1, 4]]), degrees=(-1, 1)).generators
-    [(-1, -4), (-1, -2), (0, -2), (0, 0)]
-
-    (At the ends of a window objects stay that the degrees left out would have cancelled.)
+    [(0, -2), (0, 0)]
     """
     d = _diagram(diagram)
     ring = parse_field(field)

@@ -56,11 +56,11 @@ def test_homology_inside_a_window_equals_the_whole(name, window):
         assert _inside(part[key], lo, hi) == _inside(integral[key], lo, hi)
 
 
-def test_a_window_only_leaves_out_and_a_wrong_window_would_show():
-    # the check above can fail: a window one degree too narrow changes homology at its edge
-    d = parse_diagram("4_1")
+def test_a_wrong_window_would_show():
+    # the checks above can fail: homology at the edge of a window is not the whole complex's
+    d = parse_diagram("6_1")
     whole = khovanov_integral(bar_natan_complex(d, "Z"))["free"]
-    cut = khovanov_integral(bar_natan_complex(d, "Z", degrees=(0, 1)))["free"]
+    cut = khovanov_integral(bar_natan_complex(d, "Z", degrees=(-1, 0)))["free"]
     assert {k: v for k, v in cut.items() if k[0] == 0} != {k: v for k, v in whole.items() if k[0] == 0}
 
 
