@@ -34,7 +34,7 @@ from typing import Sequence
 
 from movies.diagram.handles import HandleDiagram, twisted
 from movies.errors import DiagramError, InternalError, NotNullHomologousError, NotTwoDivisibleError
-from movies.homology.links import link_s_values
+from movies.homology.families import family_khovanov, family_s
 
 __all__ = ["Limit", "SSequence", "KhovanovTable", "NotNullHomologousError", "NotTwoDivisibleError", "s_of_handles",
            "khovanov_of_handles", "twist_normalisation"]
@@ -111,18 +111,15 @@ def s_of_handles(link: HandleDiagram, fields: Sequence[str] = ("Q", "F2"), most:
         raise DiagramError(f"the largest |k| is 1 or more, not {most}")
     fields = list(fields)
     width = sum(len(gate.edges) for gate in link.gates)  # 2P
-    start = link_s_values(link.diagram, fields)
-    values = {field: {0: start[field]} for field in fields}
+    values: dict[str, dict[int, int]] = {field: {} for field in fields}
     for direction in (1, -1):
-        open_fields = list(fields)
-        for step in range(1, most + 1):
-            k = direction * step
-            found = link_s_values(twisted(link, k), open_fields)
-            for field in open_fields:
+        # one scan per direction: the common part once, then one full twist after another
+        def certified(k: int, found: dict, direction=direction) -> bool:
+            for field in fields:
                 values[field][k] = found[field]
-            open_fields = [f for f in open_fields if values[f][k] != start[f] - direction * width]
-            if not open_fields:
-                break
+            return k != 0 and all(found[f] == values[f][0] - direction * width for f in fields)
+
+        family_s(link, direction * most, fields, stop=certified)
     return {field: _judge(field, values[field], width) for field in fields}
 
 
@@ -222,9 +219,15 @@ def khovanov_of_handles(link: HandleDiagram, ks: Sequence[int], field: str = "Q"
             "through every handle; strands through each handle here: "
             + ", ".join(str(len(g.edges)) for g in link.gates))
     tables: dict[int, dict[tuple[int, int], int]] = {}
+    computed: dict[int, dict] = {}
+    for direction in (1, -1):  # one scan per direction, from L(0) to the farthest k asked for
+        farthest = max((direction * k for k in ks), default=0)
+        if farthest > 0:
+            computed.update(family_khovanov(link, direction * farthest, field))
     for k in ks:
         dh, dq = twist_normalisation(link, k)
-        tables[k] = {(i + dh, j + dq): r for (i, j), r in khovanov_homology(twisted(link, k), field).items() if r}
+        found = computed[k] if k in computed else khovanov_homology(twisted(link, k), field)
+        tables[k] = {(i + dh, j + dq): r for (i, j), r in found.items() if r}
     result = []
     for k in ks:
         before = k - 1 if k > 0 else k + 1
