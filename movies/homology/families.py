@@ -47,10 +47,11 @@ class TwistFamily:
     of the (j+1)-th full twist of every box, in braid-word order; ``closings[k]``: for k < K, the
     pairs of edge labels that an arc joins to close the scan after k full twists into L(±k) (none
     for the last member when it is the diagram the plan was read from);
-    ``whole``: the diagram with the most twists, read for the plan; ``signs``: the sign of each PD tuple; ``minus[k]``, ``plus[k]``: the negative and positive
-    crossings of L(±k); ``loops``: crossingless circles away from the boxes (in every member;
-    circles through a box that has no crossing in L(0) close in the scan); ``members``:
-    the diagrams ``twisted(link, ±k)``, against which each member is checked.
+    ``whole``: the diagram with the most twists, read for the plan; ``signs``: the sign of each
+    PD tuple; ``minus[k]``, ``plus[k]``: the negative and positive
+    crossings of L(±k); ``seifert[k]``: its Seifert circles; ``loops``: crossingless circles away
+    from the boxes (in every member; circles through a box that has no crossing in L(0) close in
+    the scan); ``components``: the components of every member (a full twist is a pure braid).
     """
 
     turns: int
@@ -61,8 +62,9 @@ class TwistFamily:
     minus: list
     plus: list
     loops: int
-    members: tuple
+    components: int
     whole: Diagram
+    seifert: list
 
     def crossings_of(self, k: int) -> list:
         """The PD tuples of L(±k): the common part and the first k full twists."""
@@ -109,9 +111,8 @@ def twist_family(link: HandleDiagram, most: int) -> TwistFamily:
             pairs += _box_pairs(diagram, ends, block_of, b, k, built)
         closings.append(_chained(pairs))
     signs = {diagram.crossings[name]: diagram.signs[name] for name in diagram.crossings}
-    members = tuple(twisted(link, hand * k) for k in range(count + 1))
-    plan = TwistFamily(hand, common, blocks[:count], tuple(closings), signs, [], [], diagram.loop_count(), members,
-                       diagram)
+    plan = TwistFamily(hand, common, blocks[:count], tuple(closings), signs, [], [], diagram.loop_count(),
+                       link.diagram.component_count(), diagram, [])
     for k in range(count + 1):
         crossings = plan.crossings_of(k)
         plan.minus.append(sum(1 for c in crossings if signs[c] < 0))
@@ -121,10 +122,12 @@ def twist_family(link: HandleDiagram, most: int) -> TwistFamily:
 
 
 def _check(plan: TwistFamily) -> None:
-    """Each member as planned is the diagram ``twisted(link, k)``: the same number of crossings,
-    of negative crossings and of components, and every end of the scanned crossings is joined.
-    Raises InternalError otherwise (a bug, never an answer)."""
-    for k, member in enumerate(plan.members):
+    """Each member as planned has the components of L(0), every end of its crossings is joined
+    (and no end is joined twice), and L(±K) is the diagram the plan was read from; fills in
+    ``plan.seifert``. Raises InternalError otherwise (a bug, never an answer); the tests compare
+    every member with ``twisted(link, k)`` besides."""
+    plan.seifert.clear()
+    for k in range(len(plan.blocks) + 1):
         crossings = plan.crossings_of(k)
         pairs = plan.closings[k] if k < len(plan.closings) else ()
         seen: dict = {}
@@ -139,13 +142,16 @@ def _check(plan: TwistFamily) -> None:
         index = {label: i for i, label in enumerate(labels)}
         roots = partition_roots(len(labels), [(index[a], index[b]) for a, b in joins])
         components = len(set(roots)) + plan.loops
-        found = (len(crossings), plan.minus[k], components)
-        wanted = (len(member.crossings), _minus(member), member.component_count())
-        if found != wanted or any(n != 2 for n in seen.values()):
-            loose = sorted(label for label, n in seen.items() if n != 2)
+        loose = sorted(label for label, n in seen.items() if n != 2)
+        if components != plan.components or loose:
             raise InternalError(f"the family's member {plan.turns * k} does not match L({plan.turns * k}): "
-                                f"(crossings, negative, components) {found} against {wanted}"
+                                f"{components} components against {plan.components}"
                                 + (f"; edges {loose} left open" if loose else ""))
+        # the oriented resolution: the 0-smoothing at a positive crossing, the 1-smoothing at a negative one
+        oriented = [(c[0], c[1]) if plan.signs[c] > 0 else (c[0], c[3]) for c in crossings] + \
+                   [(c[2], c[3]) if plan.signs[c] > 0 else (c[1], c[2]) for c in crossings] + list(pairs)
+        circles = partition_roots(len(labels), [(index[a], index[b]) for a, b in oriented])
+        plan.seifert.append(len(set(circles)) + plan.loops)
 
 
 def _order(diagram: Diagram) -> list:
@@ -153,10 +159,6 @@ def _order(diagram: Diagram) -> list:
     names = sorted(diagram.crossings)
     pd = [diagram.crossings[name] for name in names]
     return [names[i] for i in scan_order(pd)] if pd else []
-
-
-def _minus(diagram: Diagram) -> int:
-    return sum(1 for s in diagram.signs.values() if s < 0)
 
 
 def _box_pairs(diagram: Diagram, ends: dict, block_of: dict, box: int, k: int, built: int) -> list:
@@ -290,14 +292,13 @@ def family_s(link: HandleDiagram, most: int, fields: Sequence[str] = ("Q",), sto
     plan = twist_family(link, most)
     result: dict[int, dict[str, int]] = {}
     if plan.loops or plan.whole.piece_count() != 1:  # the canonical class is coloured on one piece
-        for k, member in enumerate(plan.members):
-            result[plan.turns * k] = link_s_values(member, list(fields))
+        for k in range(abs(most) + 1):
+            result[plan.turns * k] = link_s_values(twisted(link, plan.turns * k), list(fields))
             if stop is not None and stop(plan.turns * k, result[plan.turns * k]):
                 break
         return result
     for k, final in family_complexes(plan, Ring("Z", 0), S_DEGREES, canonical=True):
-        member = plan.members[abs(k)]
-        q = member.writhe() - member.seifert_circle_count()
+        q = plan.plus[abs(k)] - plan.minus[abs(k)] - plan.seifert[abs(k)]  # writhe minus Seifert circles
         cycle = final.carried[0]
         _check_cycle(final, cycle, q)
         canonical = CanonicalComplex(final, cycle, q)

@@ -36,19 +36,25 @@ COMMANDS = {
 }
 
 
-def main() -> int:
-    parser = argparse.ArgumentParser(description=__doc__.splitlines()[0])
-    parser.add_argument("--rounds", type=int, default=11)
-    args = parser.parse_args()
+def measure(rounds: int) -> dict[str, list[float]]:
+    """Whole-process seconds of each command, ``rounds`` interleaved rounds after one warm-up."""
     env = {k: v for k, v in os.environ.items() if k != "PYTHONDONTWRITEBYTECODE"}
     times: dict[str, list[float]] = {name: [] for name in COMMANDS}
     for command in COMMANDS.values():
         subprocess.run(command, env=env, capture_output=True, check=True, cwd=ROOT)
-    for _ in range(args.rounds):
+    for _ in range(rounds):
         for name, command in COMMANDS.items():
             started = time.perf_counter()
             subprocess.run(command, env=env, capture_output=True, check=True, cwd=ROOT)
             times[name].append(time.perf_counter() - started)
+    return times
+
+
+def main() -> int:
+    parser = argparse.ArgumentParser(description=__doc__.splitlines()[0])
+    parser.add_argument("--rounds", type=int, default=11)
+    args = parser.parse_args()
+    times = measure(args.rounds)
     lines = ["# Start-up: whole-process time of small commands", "",
              f"{date.today()}, {os.cpu_count()} cores, Python {platform.python_version()}. "
              f"Median and slowest of {args.rounds} interleaved rounds; byte-code caches on. Goal: 0.3 s.", "",

@@ -268,3 +268,28 @@ def check_drawing(diagram, text: str, visible: bool = True) -> dict:
             if face in read["faces"] and visible:
                 assert _inside(read["faces"][face], poly) == bounded, f"the label of face {face} is outside it"
     return read
+
+
+def crossing_angles(diagram, text: str) -> dict:
+    """The angle (degrees, 0 to 90) between the two strands at each crossing, read from the SVG.
+
+    The under-strand's direction is the chord across its gap (from the end of the edge arriving
+    to the start of the edge leaving); the over-strand's runs between its first drawn points
+    three gaps away on either side of the crossing point: the angle a reader sees, not the
+    tangents alone (a strand bent hard just beside the crossing does not count as square).
+    """
+    strands = read_svg(text)["strands"]
+    angles = {}
+    for name, (a, b, c, d) in diagram.crossings.items():
+        over_in, over_out = diagram.over_edges(name)
+        p = strands[over_in]["points"][-1]
+        u0, u1 = strands[a]["points"][-1], strands[c]["points"][0]
+        reach = 3 * max(_distance(u0, p), _distance(u1, p))
+        before = _away(strands[over_in]["points"][::-1], p, reach)
+        after = _away(strands[over_out]["points"], p, reach)
+        over = (after[0] - before[0], after[1] - before[1])
+        under = (u1[0] - u0[0], u1[1] - u0[1])
+        cross = abs(over[0] * under[1] - over[1] * under[0])
+        dot = abs(over[0] * under[0] + over[1] * under[1])
+        angles[name] = math.degrees(math.atan2(cross, dot))
+    return angles

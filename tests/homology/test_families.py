@@ -64,7 +64,20 @@ def test_stop_ends_the_scan_early():
     assert seen == [0, 1, 2]
 
 
-def test_the_plan_is_checked_against_each_member():
+@pytest.mark.parametrize("text", LINKS)
+def test_the_plan_counts_what_each_member_has(text):
+    link = fibers(3, 1) if text == "fibers(3, 1)" else parse_handle_diagram(text)
+    for most in (3, -2):
+        plan = twist_family(link, most)
+        for k in range(abs(most) + 1):
+            member = twisted(link, plan.turns * k)
+            assert len(plan.crossings_of(k)) == len(member.crossings)
+            assert plan.minus[k] == sum(1 for s in member.signs.values() if s < 0)
+            assert plan.seifert[k] == member.seifert_circle_count()
+            assert plan.components == member.component_count()
+
+
+def test_a_broken_plan_is_refused():
     plan = twist_family(fibers(2, 2), 2)
     assert [len(b) for b in plan.blocks] == [12, 12]
     assert plan.minus == [0, 8, 16]  # 4 of the 6 pairs of strands run opposite ways, twice each
