@@ -152,24 +152,25 @@ def assemble(
     signs = dict(signs)
     loops = frozenset(loops)
     cycles = trace_cycles(crossings, signs, loops)
-    _check_planar(crossings, signs, loops, cycles)
+    probe = Diagram(crossings, signs, loops)  # pieces and edge ends, computed once for the checks
+    _check_planar(probe, cycles)
     components = trace_components(crossings, signs, loops)
     if not cycles:
         # the empty diagram: the whole sphere is one face with no boundary
         name = min(previous.faces, default=1) if previous is not None else 1
         return Diagram(crossings, signs, loops, {}, {name: ()})
     if previous is None:
-        faces = _faces_side_by_side(crossings, signs, loops, cycles)
+        faces = _faces_side_by_side(probe, cycles)
         named_components = {i + 1: comp for i, comp in enumerate(components)}
     else:
         faces = _inherit_faces(previous, cycles, hints, crossings, signs, loops)
         named_components = _inherit_components(previous, components, hints)
     diagram = Diagram(crossings, signs, loops, named_components, faces)
-    check_regions(diagram)
+    check_regions(diagram, cycles)
     return diagram
 
 
-def check_regions(diagram: Diagram) -> None:
+def check_regions(diagram: Diagram, traced=None) -> None:
     """Check that the faces are the traced cycles, and that pieces and regions form a tree.
 
     On the sphere every split piece touches each region at most once, and the graph with a node
@@ -177,9 +178,13 @@ def check_regions(diagram: Diagram) -> None:
 
     >>> from movies.diagram.pd import from_pd
     >>> check_regions(from_pd([], loops=2))
+
+    ``traced``: the diagram's boundary cycles when the caller has just traced them.
     """
     cycles = sorted(c for region in diagram.faces.values() for c in region)
-    traced = trace_cycles(diagram.crossings, diagram.signs, diagram.loops)
+    if traced is None:
+        traced = trace_cycles(diagram.crossings, diagram.signs, diagram.loops)
+    traced = sorted(traced)
     if cycles != traced:
         raise DiagramError("the faces do not match the diagram's boundary cycles")
     pieces = diagram.pieces()
@@ -195,8 +200,8 @@ def check_regions(diagram: Diagram) -> None:
         raise DiagramError("the split pieces and the faces between them do not form a tree")
 
 
-def _check_planar(crossings, signs, loops, cycles) -> None:
-    probe = Diagram(crossings, signs, loops)
+def _check_planar(probe: Diagram, cycles) -> None:
+    loops = probe.loops
     piece_of_edge = {}
     for index, piece in enumerate(probe.pieces()):
         for edge in piece:
@@ -218,20 +223,12 @@ def _check_planar(crossings, signs, loops, cycles) -> None:
             )
 
 
-def _piece_index(crossings, signs, loops) -> dict[int, int]:
-    probe = Diagram(crossings, signs, loops)
-    return {edge: i for i, piece in enumerate(probe.pieces()) for edge in piece}
-
-
-def _faces_side_by_side(crossings, signs, loops, cycles) -> dict[int, tuple[tuple[Side, ...], ...]]:
-    piece_of = _piece_index(crossings, signs, loops)
-    probe = Diagram(crossings, signs, loops)
+def _faces_side_by_side(probe: Diagram, cycles) -> dict[int, tuple[tuple[Side, ...], ...]]:
     roots = {Side(min(piece), "R") for piece in probe.pieces()}
     common = tuple(sorted(cycle for cycle in cycles if any(side in roots for side in cycle)))
     regions = [common] if common else []
     regions += [(cycle,) for cycle in cycles if cycle not in common]
     regions.sort(key=lambda region: min(min(cycle) for cycle in region))
-    del piece_of
     return {i + 1: region for i, region in enumerate(regions)}
 
 
