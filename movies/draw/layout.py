@@ -147,10 +147,26 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
                 link(centre, r)
                 triangles.append((centre, r, ring[(i + 1) % n]))
     solved = _barycentric(len(index), adjacency, boundary)
+    arms = []  # each crossing with the first point of its four edges, counterclockwise (PD order)
+    kinked = {label for labels in diagram.crossings.values() if len(set(labels)) < 4 for label in labels}
+    for name in sorted({key[1] for key in index if key[0] == "c"}):
+        if kinked.intersection(diagram.crossings[name]):
+            continue  # a kink's loop is shaped by its own small face: turning next to it squeezes it
+        row = [index[("c", name)]]
+        for position, edge in enumerate(diagram.crossings[name]):
+            tail, _ = diagram.edge_ends[edge]
+            row.append(index[("e", edge, 1 if tuple(tail) == (name, position) else SUBDIVISION)])
+        arms.append(row)
     if REFINEMENT:
-        refined = refine(solved, adjacency, boundary, triangles, drawn, strokes, REFINEMENT)
-        if _planar(refined, strokes):
-            solved = refined
+        plain = refine(solved, adjacency, boundary, triangles, drawn, strokes, REFINEMENT)
+        opened = refine(solved, adjacency, boundary, triangles, drawn, strokes, REFINEMENT, arms) if arms else plain
+        # the crossings opened, unless that crowds some crossing much more than the plain springs do
+        points = [index[key] for key in index if key[0] == "c"]
+        for refined in ((opened, plain) if _room(opened, points, strokes) >= 0.5 * _room(plain, points, strokes)
+                        else (plain,)):
+            if _planar(refined, strokes):
+                solved = refined
+                break
 
     def at(key: tuple) -> Point:
         x, y = solved[index[key]]
@@ -479,8 +495,42 @@ def _repulsion(pts: np.ndarray, ideal: float) -> tuple[np.ndarray, np.ndarray]:
     return force, nearest
 
 
+#: how hard the arms of a crossing are turned toward a right-angled cross, against the springs
+OPENING = 80.0
+
+
+def _opening(pts: np.ndarray, arms: np.ndarray, quarter: np.ndarray) -> np.ndarray:
+    """The push on each arm's point turning it about its crossing toward the nearest cross of
+    four directions a right angle apart (shape: crossings × 4 × 2).
+
+    >>> pts = np.array([[0.0, 0.0], [1.0, 0.0], [0.5, 0.5], [-1.0, 0.0], [0.0, -1.0]])
+    >>> push = _opening(pts, np.array([[0, 1, 2, 3, 4]]), np.arange(4) * (np.pi / 2))
+    >>> bool(push[0, 1, 0] < 0 and push[0, 1, 1] > 0)  # the arm at 45 degrees turns on toward 90
+    True
+    """
+    vectors = pts[arms[:, 1:]] - pts[arms[:, :1]]
+    angles = np.arctan2(vectors[..., 1], vectors[..., 0])
+    offsets = angles - quarter
+    mean = np.arctan2(np.sin(offsets).sum(axis=1), np.cos(offsets).sum(axis=1))
+    turn = (mean[:, None] + quarter - angles + np.pi) % (2 * np.pi) - np.pi
+    perpendicular = np.stack([-vectors[..., 1], vectors[..., 0]], axis=-1)
+    return OPENING * turn[..., None] * perpendicular
+
+
+def _room(xy: np.ndarray, centres: list[int], strokes: list[tuple[int, int]]) -> float:
+    """The closest any drawn vertex comes to a crossing (``centres``), over the median drawn edge."""
+    if not centres:
+        return 1.0
+    ends = np.asarray(strokes, dtype=int)
+    used = np.unique(ends.ravel())
+    median = float(np.median(np.sqrt(((xy[ends[:, 0]] - xy[ends[:, 1]]) ** 2).sum(axis=1))))
+    distances = np.sqrt(((xy[np.asarray(centres, dtype=int)][:, None, :] - xy[used][None, :, :]) ** 2).sum(axis=2))
+    distances[distances == 0] = np.inf  # the crossing itself
+    return float(distances.min()) / median if median > 0 else 0.0
+
+
 def refine(xy: np.ndarray, adjacency: list[set[int]], boundary: dict[int, Point], triangles: list[tuple[int, int, int]],
-           drawn: int, strokes: list[tuple[int, int]], rounds: int) -> np.ndarray:
+           drawn: int, strokes: list[tuple[int, int]], rounds: int, arms=()) -> np.ndarray:
     """Spread a barycentric picture out by springs, never letting a triangle turn over.
 
     Drawn vertices (``0 .. drawn-1``) repel each other and are pulled along the drawn edges
@@ -489,9 +539,15 @@ def refine(xy: np.ndarray, adjacency: list[set[int]], boundary: dict[int, Point]
     so every triangle keeps its orientation: the triangulated disk stays embedded, and with it
     the drawn graph stays a planar straight-line drawing.
 
+    ``arms`` lists each crossing's vertex and the first vertex of its four edges, counterclockwise:
+    those are pushed, each about its crossing, toward four directions a right angle apart (the
+    nearest such cross to where they are), so that the strands cross openly.
+
     Parameters: positions, the triangulation (adjacency, fixed boundary, triangles), how many
-    vertices are drawn, the drawn edges, and the number of rounds. Returns new positions.
+    vertices are drawn, the drawn edges, the number of rounds and the arms. Returns new positions.
     """
+    arms = np.asarray(arms, dtype=int).reshape(-1, 5)
+    quarter = np.arange(4) * (np.pi / 2)
     xy = xy.copy()
     tri = np.asarray(triangles, dtype=int)
     sign = np.sign(_orientations(xy, tri))
@@ -514,6 +570,8 @@ def refine(xy: np.ndarray, adjacency: list[set[int]], boundary: dict[int, Point]
         pull = (pts[edges[:, 1]] - pts[edges[:, 0]]) * (lengths / ideal)[:, None]
         np.add.at(force, edges[:, 0], pull)
         np.add.at(force, edges[:, 1], -pull)
+        if len(arms):
+            np.add.at(force, arms[:, 1:].ravel(), _opening(pts, arms, quarter).reshape(-1, 2))
         size = np.sqrt((force ** 2).sum(axis=1))
         # a step of at most a third of the distance to the nearest other drawn vertex
         step = np.minimum(size, 0.3 * nearest) * (1 - round_ / rounds)
