@@ -466,32 +466,38 @@ def _orientations(xy: np.ndarray, tri: np.ndarray) -> np.ndarray:
     return (b[:, 0] - a[:, 0]) * (c[:, 1] - a[:, 1]) - (b[:, 1] - a[:, 1]) * (c[:, 0] - a[:, 0])
 
 
-#: pairs of vertices handled in one numpy call of the repulsion: bounds its memory, and the
-#: time between two points where Python can act on Ctrl-C
-PAIRS_PER_BLOCK = 1 << 18
-
-
 def _repulsion(pts: np.ndarray, ideal: float) -> tuple[np.ndarray, np.ndarray]:
     """The push on each point from the points within three ideal lengths, and the distance to
-    its nearest neighbour, computed a block of rows at a time (never an n × n array at once).
+    its nearest neighbour (at most three ideal lengths: farther ones are not looked for).
+
+    The points are binned in square cells three ideal lengths wide, so only the points of a
+    cell and its eight neighbours are compared: linear in the number of points, where comparing
+    every pair was quadratic (2.5 s of the 3.4 s a 100-crossing drawing took).
 
     >>> force, nearest = _repulsion(np.array([[0.0, 0.0], [1.0, 0.0]]), 1.0)
     >>> force.tolist(), nearest.tolist()
     ([[-1.0, 0.0], [1.0, 0.0]], [1.0, 1.0])
     """
     n = len(pts)
+    reach = 3 * ideal
     force = np.zeros((n, 2))
-    nearest = np.zeros(n)
-    rows = max(1, PAIRS_PER_BLOCK // max(n, 1))
-    for first in range(0, n, rows):
-        last = min(n, first + rows)
-        delta = pts[first:last, None, :] - pts[None, :, :]
+    nearest = np.full(n, reach)
+    cells = np.floor(pts / reach).astype(np.int64)
+    members: dict[tuple[int, int], list[int]] = {}
+    for i, (cx, cy) in enumerate(cells.tolist()):
+        members.setdefault((cx, cy), []).append(i)
+    groups = {key: np.asarray(value) for key, value in members.items()}
+    for (cx, cy), own in groups.items():
+        around = [groups[key] for key in ((cx + dx, cy + dy) for dx in (-1, 0, 1) for dy in (-1, 0, 1))
+                  if key in groups]
+        others = np.concatenate(around)
+        delta = pts[own][:, None, :] - pts[others][None, :, :]
         dist2 = (delta ** 2).sum(axis=2)
-        dist2[np.arange(last - first), np.arange(first, last)] += 1e9
-        near = dist2 < (3 * ideal) ** 2
-        push = np.where(near, ideal ** 2 / dist2, 0.0)
-        force[first:last] = (delta * push[..., None]).sum(axis=1)
-        nearest[first:last] = np.sqrt(dist2.min(axis=1))
+        dist2[own[:, None] == others[None, :]] = np.inf
+        near = dist2 < reach ** 2
+        push = np.where(near, ideal ** 2 / np.where(near, dist2, 1.0), 0.0)
+        force[own] = (delta * push[..., None]).sum(axis=1)
+        nearest[own] = np.minimum(reach, np.sqrt(dist2.min(axis=1)))
     return force, nearest
 
 
