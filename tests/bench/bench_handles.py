@@ -35,6 +35,7 @@ CHILD = """
 import resource, time
 from movies.diagram.handles import fibers, twisted
 from movies.homology.families import family_s
+from movies.homology.links import link_s_values
 started = time.perf_counter()
 value = {call}
 print(repr((value, time.perf_counter() - started, resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024)))
