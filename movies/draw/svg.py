@@ -509,7 +509,8 @@ class _Room:
 
     def place(self, candidates, size, near=None) -> tuple[float, float]:
         """The first candidate centre whose box meets no label and no strand; else, among the
-        ``near`` candidates, the first that meets no label; else the first candidate. Taken."""
+        ``near`` candidates, the first that meets no label; else the nearest place on rings around
+        the first candidate that meets no label (and no strand, if one does). Taken."""
         w, h = size
 
         def box(c):
@@ -517,7 +518,14 @@ class _Room:
 
         chosen = next((c for c in candidates if self.free(box(c))), None)
         if chosen is None:
-            chosen = next((c for c in (near or []) if self.free(box(c), strands=False)), candidates[0])
+            chosen = next((c for c in (near or []) if self.free(box(c), strands=False)), None)
+        if chosen is None:
+            # crowded: step outwards from the first candidate until no other label is in the way
+            x, y = candidates[0]
+            rings = [(x + dx * r * w, y + dy * r * h) for r in (0.5, 1, 1.5, 2, 3, 4, 6, 8)
+                     for dx, dy in ((0, 1), (0, -1), (1, 0), (-1, 0), (1, 1), (-1, 1), (1, -1), (-1, -1))]
+            chosen = next((c for c in rings if self.free(box(c))), None) or \
+                next((c for c in rings if self.free(box(c), strands=False)), candidates[0])
         self.boxes.append((chosen[0] - w / 2, chosen[1] - h / 2, chosen[0] + w / 2, chosen[1] + h / 2))
         return chosen
 
@@ -566,7 +574,7 @@ def _labels(diagram, lay, drawn, canvas, colour_of, stroke) -> list[str]:
         near = [(x + dx * step * f, y + dy * step * f) for f in (0.35, 0.7) for dx, dy in
                 ((0, 1), (0, -1), (1, 0), (-1, 0))]
         x, y = room.place(candidates, label_size(str(face), font + 1), near=[(x, y)] + near)
-        out.append(f'<text class="label-face" data-face="{face}" x="{_num(x)}" y="{_num(y + font * 0.35)}" '
+        out.append(f'<text class="label-face" data-face="{face}" x="{_num(x)}" y="{_num(y + (font + 1) * 0.35)}" '
                    f'font-family="serif" font-style="italic" font-size="{font + 1}" text-anchor="middle" '
                    f'fill="#777777">{face}</text>')
     radius = font * 0.72
