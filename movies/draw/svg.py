@@ -63,6 +63,9 @@ class Highlight:
     band: tuple[int, int, int] | None = None
     #: a twist step: (its gate, as a handle's Gate, and its full twists), drawn as a box across the strands
     twist: tuple | None = None
+    #: a band along a path: ((edge, over), ...) the edges its core crosses; ``faces`` are then the
+    #: faces it runs through, in order, and ``band`` names its first face
+    path: tuple[tuple[int, bool], ...] = ()
 
     def is_empty(self) -> bool:
         """True when nothing is marked."""
@@ -222,9 +225,14 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
         out.append(f"<title>{escape(title)}</title>")
     out.append(f'<rect x="0" y="0" width="{_num(width)}" height="{_num(height)}" fill="#ffffff"/>')
     root = outer_face(diagram) if diagram.faces else None
+    band_parts: tuple[list[str], list[str]] = ([], [])
+    if highlight.band is not None:
+        first, second, face = highlight.band
+        faces = tuple(highlight.faces) if highlight.path else (face,)
+        band_parts = _band(diagram, (first, second, faces, tuple(highlight.path)), drawn, canvas, stroke)
     for face in highlight.faces:
-        if highlight.band is not None and face == highlight.band[2]:
-            continue  # the band itself is drawn, not its face
+        if band_parts[0] and highlight.band is not None and (face == highlight.band[2] or highlight.path):
+            continue  # the band itself is drawn, not its faces
         if face in diagram.faces:
             d = _face_path(diagram, face, drawn.curves, canvas, outer=face == root)
             out.append(f'<path class="hl-face" data-face="{face}" d="{d}" fill="{HIGHLIGHT_FACE}" '
@@ -234,8 +242,7 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
             d = _path_data(drawn.curves[edge], canvas, closed=edge in diagram.loops)
             out.append(f'<path class="hl-edge" data-edge="{edge}" d="{d}" fill="none" stroke="{HIGHLIGHT_EDGE}" '
                        f'stroke-width="{_num(stroke * 4.5)}" stroke-linecap="round" stroke-linejoin="round" opacity="0.85"/>')
-    if highlight.band is not None:
-        out.extend(_band(diagram, highlight.band, drawn, canvas, stroke))
+    out.extend(band_parts[0])
     for edge in sorted(drawn.curves):
         component = diagram.component_of(edge)
         colour = colour_of[component]
@@ -262,6 +269,7 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
         right = (mx - a * tx - 0.75 * a * nx, my - a * ty - 0.75 * a * ny)
         out.append(f'<path class="arrow" data-edge="{edge}" d="M{_num(tip[0])} {_num(tip[1])} L{_num(left[0])} '
                    f'{_num(left[1])} L{_num(right[0])} {_num(right[1])} Z" fill="{colour_of[diagram.component_of(edge)]}"/>')
+    out.extend(band_parts[1])  # where the band passes over a strand
     for crossing in highlight.crossings:
         if crossing in lay.crossings:
             x, y = canvas(lay.crossings[crossing])
@@ -368,24 +376,30 @@ def _gate(diagram: Diagram, gate, index, drawn: Strands, canvas: _Canvas, stroke
             f'fill="#222222" text-anchor="middle">h{index}</text>']
 
 
-def _band(diagram: Diagram, band: tuple[int, int, int], drawn: Strands, canvas: _Canvas, stroke: float) -> list[str]:
-    """A band across a face, drawn as a strip between its two edges: its two sides and its core.
+def _band(diagram: Diagram, band: tuple, drawn: Strands, canvas: _Canvas, stroke: float) -> tuple[list[str], list[str]]:
+    """A band drawn as a strip: its two sides and its dashed core, across one face or along a path.
 
-    The core joins the closest pair of points of the two edges (away from their ends) whose segment
-    leaves each edge into the band's face and crosses no strand; nothing is drawn if there is none.
+    ``band`` is (first edge, second edge, faces, path): one face and no path for a band across a
+    face; else the faces the core runs through, in order, and ((edge, over), ...) the edges it
+    crosses between them. Each piece of the core is a segment between points of two edges (away
+    from their ends) that leaves each edge into that piece's face and crosses no strand; the
+    pieces meet on the crossed edges, and the shortest such chain is drawn. Returns (what goes under the strands, what goes over them:
+    the band where it passes over an edge); nothing at all when some piece finds no such segment.
     """
-    first, second, face = band
-    if first not in drawn.curves or second not in drawn.curves or face not in diagram.faces:
-        return []
-    lines = {edge: [canvas(p) for p in sample(drawn.curves[edge])] for edge in (first, second)}
-    others = [[canvas(p) for p in sample(curve)] for edge, curve in drawn.curves.items() if edge not in (first, second)]
+    first, second, faces, path = band
+    chain = [first] + [edge for edge, _ in path] + [second]
+    if any(edge not in drawn.curves for edge in chain) or any(f not in diagram.faces for f in faces) \
+            or len(faces) != len(chain) - 1:
+        return [], []
+    lines = {edge: [canvas(p) for p in sample(drawn.curves[edge])] for edge in chain}
+    everything = [[canvas(p) for p in sample(curve)] for curve in drawn.curves.values()]
 
     def inner(edge):
         line = lines[edge]
         cut = len(line) // 6 if edge not in diagram.loops else 0
         return line[cut:len(line) - cut] or line
 
-    def into_face(edge, index, target) -> bool:
+    def into_face(edge, index, target, face) -> bool:
         line = lines[edge]
         a, b = line[max(index - 1, 0)], line[min(index + 1, len(line) - 1)]
         tx, ty = b[0] - a[0], b[1] - a[1]
@@ -394,30 +408,76 @@ def _band(diagram: Diagram, band: tuple[int, int, int], drawn: Strands, canvas: 
         # on the canvas (y down) a positive cross product is to the right of the direction of travel
         return (face == right) == (cross > 0) or left == right
 
-    def clear(p, q) -> bool:
-        return not any(_segments_cross(p, q, a, b) for line in others for a, b in zip(line, line[1:]))
+    def clear(p, q) -> bool:  # touching a strand at an end of the segment does not count
+        return not any(_segments_cross(p, q, a, b) for line in everything for a, b in zip(line, line[1:]))
 
-    best = None
-    for i, p in enumerate(inner(first)):
-        for j, q in enumerate(inner(second)):
-            gap = math.hypot(q[0] - p[0], q[1] - p[1])
-            if gap < 1e-9 or (best is not None and gap >= best[0]):
+    # the core's point on each edge of the chain: any inner point of the ends, every third inner
+    # point of the crossed edges; the cheapest chain of valid pieces (shortest total length) wins
+    options = [inner(first)] + [inner(edge)[::3] or inner(edge) for edge, _ in path] + [inner(second)]
+    best: dict = {p: (0.0, None) for p in options[0]}  # point -> (length so far, previous point)
+    steps = []
+    for k, face in enumerate(faces):
+        here, there = chain[k], chain[k + 1]
+        pairs = sorted((best[p][0] + math.hypot(q[0] - p[0], q[1] - p[1]), p, q)
+                       for p in best for q in options[k + 1] if q != p)
+        reached: dict = {}
+        for total, p, q in pairs:
+            if q in reached:
                 continue
-            ip, iq = lines[first].index(p), lines[second].index(q)
-            if into_face(first, ip, q) and into_face(second, iq, p) and clear(p, q):
-                best = (gap, p, q)
-    if best is not None:
-        core = [best[1], best[2]]
-    elif face == outer_face(diagram):
-        core = _around(lines[first], lines[second], others + [lines[first], lines[second]], canvas, clear)
-        if core is None:
-            return []
-    else:
-        return []
+            if into_face(here, lines[here].index(p), q, face) and into_face(there, lines[there].index(q), p, face) \
+                    and clear(p, q):
+                reached[q] = (total, p, [])
+        if not reached and face == outer_face(diagram):
+            # across the outer face: out from one edge, round the drawing in the margin, and in
+            round_ = _around(lines[here], lines[there], everything, canvas, clear)
+            if round_ is not None and (k == 0 or round_[0] in best):
+                length = sum(math.hypot(b[0] - a[0], b[1] - a[1]) for a, b in zip(round_, round_[1:]))
+                reached[round_[-1]] = (best.get(round_[0], (0.0,))[0] + length, round_[0], round_[1:-1])
+                if k == 0:
+                    best = {round_[0]: (0.0, None)}
+        steps.append(reached)
+        best = reached
+        if not best:
+            break
+    if not best:
+        return [], []
+    q = min(best, key=lambda point: best[point][0])
+    pieces = []
+    for reached in reversed(steps):
+        _, p, via = reached[q]
+        pieces.append([p] + via + [q])
+        q = p
+    pieces.reverse()
+    core, crossed_at = list(pieces[0]), []
+    for piece in pieces[1:]:
+        crossed_at.append(len(core) - 1)  # the point where the core meets a crossed edge
+        core += piece[1:]
+    edges = " ".join(map(str, chain))
+    under = _strip(core, stroke, f'class="band" data-edges="{edges}" data-face="{faces[0]}" '
+                                 f'data-faces="{" ".join(map(str, faces))}"')
+    over = []
+    for (edge, is_over), i in zip(path, crossed_at):
+        if is_over:  # a short piece of the band drawn again on top, across the edge it passes over
+            m = core[i]
+            reach = stroke * 6
+            piece = [_towards(m, core[i - 1], reach), m, _towards(m, core[i + 1], reach)]
+            over += _strip(piece, stroke, f'class="band-over" data-edge="{edge}"')
+    return under, over
+
+
+def _towards(p, q, distance):
+    """The point ``distance`` from p toward q (q itself when closer)."""
+    length = math.hypot(q[0] - p[0], q[1] - p[1])
+    if length <= distance:
+        return q
+    return (p[0] + (q[0] - p[0]) * distance / length, p[1] + (q[1] - p[1]) * distance / length)
+
+
+def _strip(core, stroke: float, attributes: str) -> list[str]:
+    """A wide pale stroke edged by a thin darker one, and the core dashed along the middle."""
     d = "M" + " L".join(f"{_num(x)} {_num(y)}" for x, y in core)
-    # the band: a wide pale stroke edged by a thin darker one, and its core dashed along the middle
-    return [f'<path class="band" data-edges="{first} {second}" data-face="{face}" d="{d}" fill="none" '
-            f'stroke="{HIGHLIGHT_EDGE}" stroke-width="{_num(stroke * 5.4)}" stroke-linejoin="round"/>',
+    return [f'<path {attributes} d="{d}" fill="none" stroke="{HIGHLIGHT_EDGE}" stroke-width="{_num(stroke * 5.4)}" '
+            f'stroke-linejoin="round"/>',
             f'<path class="band-inside" d="{d}" fill="none" stroke="{HIGHLIGHT_FACE}" '
             f'stroke-width="{_num(stroke * 3.8)}" stroke-linejoin="round"/>',
             f'<path class="band-core" d="{d}" fill="none" stroke="{HIGHLIGHT_EDGE}" stroke-width="{_num(stroke * 0.6)}" '

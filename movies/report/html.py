@@ -97,12 +97,14 @@ def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
         places = result.places[index] if index < len(result.places) else None
         band = None
         record = statement.record if statement is not None else None
-        if record is not None and record.kind == "band" and not record.path and places is not None and places.faces:
+        path = ()
+        if record is not None and record.kind == "band" and places is not None and places.faces:
             band = (record.first, record.second, places.faces[0])
+            path = tuple(record.path or ())
         twist = None
         if record is not None and record.kind == "twist" and places is not None:
             twist = _twist_box(frame, record)
-        highlight = (Highlight(places.edges, () if twist else places.faces, places.crossings, band, twist)
+        highlight = (Highlight(places.edges, () if twist else places.faces, places.crossings, band, twist, path)
                      if places is not None else None)
         what = "the start" if index == 0 else f"after step {index}"
         caption = (f"frame {index} ({what}): {plural(frame.crossing_count(), 'crossing')}, "

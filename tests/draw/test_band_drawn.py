@@ -94,3 +94,37 @@ def test_every_twist_step_is_drawn_as_a_box_across_its_strands(name):
         assert crossed == set(record.edges), (name, index, crossed)
         twists += 1
     assert twists >= 1
+
+
+@pytest.mark.parametrize("name", ["6_1-ribbon-along-a-path"])
+def test_a_band_along_a_path_is_drawn_along_it(name):
+    bands = 0
+    for index, record, frame in _steps_and_frames(name, "band"):
+        if not record.path:
+            continue
+        root = ET.fromstring(frame)
+        strands, core, over, stroke = {}, None, {}, None
+        for element in root.iter():
+            kind = element.get("class")
+            if kind == "strand":
+                strands[int(element.get("data-edge"))] = parse_path(element.get("d"))[0]
+                stroke = float(element.get("stroke-width"))
+            elif kind == "band-core" and core is None:
+                core = parse_path(element.get("d"))[0]
+            elif kind == "band-over":
+                over[int(element.get("data-edge"))] = parse_path(element.get("d"))[0]
+        assert core is not None, (name, index)
+        # it starts on its first edge and ends on its second (a stroke's width off, for the gaps)
+        assert _near(core[0], strands[record.first]) < 2 * stroke and _near(core[-1], strands[record.second]) < 2 * stroke
+        # it crosses each edge of its path once, in order, and no other strand
+        for edge, line in strands.items():
+            hits = sum(_crosses(u, v, line) for u, v in zip(core, core[1:]))
+            meets = sum(_near(point, line) < 1e-6 for point in core[1:-1])
+            if edge in dict(record.path):
+                assert hits + meets >= 1, (name, index, edge)
+            elif edge not in (record.first, record.second):
+                assert hits == 0, (name, index, edge)
+        # and is drawn on top exactly where it passes over
+        assert set(over) == {edge for edge, is_over in record.path if is_over}
+        bands += 1
+    assert bands >= 1
