@@ -66,10 +66,12 @@ class Highlight:
     #: a band along a path: ((edge, over), ...) the edges its core crosses; ``faces`` are then the
     #: faces it runs through, in order, and ``band`` names its first face
     path: tuple[tuple[int, bool], ...] = ()
+    #: a birth: the face the new circle appears in, drawn as a dashed circle there
+    birth: int | None = None
 
     def is_empty(self) -> bool:
         """True when nothing is marked."""
-        return not (self.edges or self.faces or self.crossings or self.band or self.twist)
+        return not (self.edges or self.faces or self.crossings or self.band or self.twist or self.birth)
 
 
 @dataclass
@@ -270,6 +272,8 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
         out.append(f'<path class="arrow" data-edge="{edge}" d="M{_num(tip[0])} {_num(tip[1])} L{_num(left[0])} '
                    f'{_num(left[1])} L{_num(right[0])} {_num(right[1])} Z" fill="{colour_of[diagram.component_of(edge)]}"/>')
     out.extend(band_parts[1])  # where the band passes over a strand
+    if highlight.birth is not None and highlight.birth in lay.face_points:
+        out.extend(_birth(highlight.birth, lay, drawn, canvas, stroke))
     for crossing in highlight.crossings:
         if crossing in lay.crossings:
             x, y = canvas(lay.crossings[crossing])
@@ -463,6 +467,19 @@ def _band(diagram: Diagram, band: tuple, drawn: Strands, canvas: _Canvas, stroke
             piece = [_towards(m, core[i - 1], reach), m, _towards(m, core[i + 1], reach)]
             over += _strip(piece, stroke, f'class="band-over" data-edge="{edge}"')
     return under, over
+
+
+def _birth(face: int, lay: Layout, drawn: Strands, canvas: _Canvas, stroke: float) -> list[str]:
+    """The circle a birth adds, dashed, about the face's point and clear of every strand."""
+    x, y = canvas(lay.face_points[face])
+    points = [canvas(p) for curve in drawn.curves.values() for p in sample(curve)]
+    room = min((math.hypot(px - x, py - y) for px, py in points), default=40.0)
+    radius = min(0.5 * room, 24.0)
+    if radius < 2 * stroke:
+        return []
+    return [f'<circle class="birth" data-face="{face}" cx="{_num(x)}" cy="{_num(y)}" r="{_num(radius)}" fill="none" '
+            f'stroke="{HIGHLIGHT_CROSSING}" stroke-width="{_num(stroke)}" '
+            f'stroke-dasharray="{_num(stroke * 2.5)} {_num(stroke * 1.5)}"/>']
 
 
 def _towards(p, q, distance):

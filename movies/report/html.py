@@ -104,7 +104,8 @@ def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
         twist = None
         if record is not None and record.kind == "twist" and places is not None:
             twist = _twist_box(frame, record)
-        highlight = (Highlight(places.edges, () if twist else places.faces, places.crossings, band, twist, path)
+        birth = places.faces[0] if record is not None and record.kind == "birth" and places and places.faces else None
+        highlight = (Highlight(places.edges, () if twist else places.faces, places.crossings, band, twist, path, birth)
                      if places is not None else None)
         what = "the start" if index == 0 else f"after step {index}"
         caption = (f"frame {index} ({what}): {plural(frame.crossing_count(), 'crossing')}, "

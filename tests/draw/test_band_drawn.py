@@ -128,3 +128,20 @@ def test_a_band_along_a_path_is_drawn_along_it(name):
         assert set(over) == {edge for edge, is_over in record.path if is_over}
         bands += 1
     assert bands >= 1
+
+
+def test_the_circle_a_birth_adds_is_drawn_in_its_face():
+    # a birth in a face of the trefoil: the frame before shows the new circle, clear of every strand
+    result = check_movie("start 3_1\nbirth in face 2\nexpect components 2\n")
+    page = movie_html(result, source="birth")
+    frame = re.findall(r'<svg xmlns="http://www.w3.org/2000/svg" class="diagram".*?</svg>', page, re.S)[0]
+    root = ET.fromstring(frame)
+    strands = [parse_path(e.get("d"))[0] for e in root.iter() if e.get("class") == "strand"]
+    circles = [e for e in root.iter() if e.get("class") == "birth"]
+    assert len(circles) == 1 and circles[0].get("data-face") == "2"
+    x, y, r = (float(circles[0].get(k)) for k in ("cx", "cy", "r"))
+    assert min(_near((x, y), line) for line in strands) > r
+    # and it lies in face 2: the face's label is inside the circle's face, nearer to it than any strand
+    label = next(e for e in root.iter() if e.get("class") == "label-face" and e.get("data-face") == "2")
+    lx, ly = float(label.get("x")), float(label.get("y"))
+    assert not any(_crosses((x, y), (lx, ly), line) for line in strands)
