@@ -158,12 +158,20 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
             row.append(index[("e", edge, 1 if tuple(tail) == (name, position) else SUBDIVISION)])
         arms.append(row)
     if REFINEMENT:
-        plain = refine(solved, adjacency, boundary, triangles, drawn, strokes, REFINEMENT)
-        opened = refine(solved, adjacency, boundary, triangles, drawn, strokes, REFINEMENT, arms) if arms else plain
-        # the crossings opened, unless that crowds some crossing much more than the plain springs do
+        opened = refine(solved, adjacency, boundary, triangles, drawn, strokes, REFINEMENT, arms)
         points = [index[key] for key in index if key[0] == "c"]
-        for refined in ((opened, plain) if _room(opened, points, strokes) >= 0.5 * _room(plain, points, strokes)
-                        else (plain,)):
+        room = _room(opened, points, strokes)
+        plain = None
+        choices = [opened]
+        if room < ROOMY and arms:
+            # the crossings opened, unless that crowds some crossing much more than the plain springs do
+            plain = refine(solved, adjacency, boundary, triangles, drawn, strokes, REFINEMENT)
+            choices = [opened, plain] if room >= 0.5 * _room(plain, points, strokes) else [plain]
+        elif arms:
+            choices = [opened, None]  # the plain springs only if the opened layout is not planar
+        for refined in choices:
+            if refined is None:
+                refined = refine(solved, adjacency, boundary, triangles, drawn, strokes, REFINEMENT)
             if _planar(refined, strokes):
                 solved = refined
                 break
@@ -500,6 +508,10 @@ def _repulsion(pts: np.ndarray, ideal: float) -> tuple[np.ndarray, np.ndarray]:
         nearest[own] = np.minimum(reach, np.sqrt(dist2.min(axis=1)))
     return force, nearest
 
+
+#: room about every crossing (nearest other vertex over the median edge) at which an opened
+#: layout is kept without comparing it with the plain one
+ROOMY = 0.25
 
 #: how hard the arms of a crossing are turned toward a right-angled cross, against the springs
 OPENING = 80.0
