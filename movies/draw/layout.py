@@ -782,3 +782,45 @@ def layout(diagram: Diagram) -> Layout:
     width = 2.3 * (min(count, columns) - 1) if count else 0.0
     result.bounds = (-1.15, -2.3 * (rows - 1) - 1.15, width + 1.15, 1.25)
     return result
+
+
+def aligned(lay: Layout, previous: Layout | None) -> Layout:
+    """The layout turned about its centre to match the crossings it shares with ``previous``.
+
+    Consecutive frames of a movie are laid out one by one, and the same crossings may come out
+    turned round the picture; turning the new one (never reflecting it: that would draw the
+    mirror image) by the angle that best matches the shared crossings, in the least-squares
+    sense, keeps what a step does not touch near where it was. Only a drawing of one piece
+    (or of several nested in one) is turned, about the centre of its disk; anything else, or
+    fewer than two shared crossings, comes back as it is.
+
+    >>> from movies.diagram.constructors import from_braid
+    >>> d = from_braid([1, 1, 1])
+    >>> lay = layout(d)
+    >>> turned = Layout({c: (-y, x) for c, (x, y) in lay.crossings.items()}, bounds=lay.bounds)
+    >>> back = aligned(lay, turned)
+    >>> all(math.dist(back.crossings[c], turned.crossings[c]) < 1e-9 for c in lay.crossings)
+    True
+    """
+    if previous is None or lay.bounds != (-1.15, -1.15, 1.15, 1.25):
+        return lay
+    shared = [c for c in lay.crossings if c in previous.crossings]
+    if len(shared) < 2:
+        return lay
+    total = sum(complex(*previous.crossings[c]) * complex(*lay.crossings[c]).conjugate() for c in shared)
+    if abs(total) < 1e-12:
+        return lay
+    turn = total / abs(total)
+
+    def rotate(p: Point) -> Point:
+        z = complex(*p) * turn
+        return (z.real, z.imag)
+
+    return Layout(
+        crossings={c: rotate(p) for c, p in lay.crossings.items()},
+        edges={e: [rotate(p) for p in pts] for e, pts in lay.edges.items()},
+        circles={e: (rotate(centre), r, ccw) for e, (centre, r, ccw) in lay.circles.items()},
+        face_points={f: (p if p == (-1.05, 1.12) else rotate(p)) for f, p in lay.face_points.items()},
+        bounds=lay.bounds,
+    )
+

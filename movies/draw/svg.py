@@ -153,7 +153,7 @@ def _face_path(diagram: Diagram, face: int, curves, canvas: _Canvas, outer: bool
 
 
 def diagram_svg(diagram: Diagram, labels: bool = False, highlight: Highlight | dict | None = None,
-                size: int = 420, title: str | None = None, gates=()) -> str:
+                size: int = 420, title: str | None = None, gates=(), lay: Layout | None = None) -> str:
     """Draw a diagram as a self-contained SVG document.
 
     Parameters
@@ -173,6 +173,9 @@ def diagram_svg(diagram: Diagram, labels: bool = False, highlight: Highlight | d
     gates : sequence of Gate
         Handles to draw (:class:`movies.diagram.handles.Gate`): each gate as a dashed black path
         from inside its first face across the middle of each edge it crosses, named h1, h2, ...
+    lay : Layout or None
+        A layout made already (for a movie's frames: :func:`~movies.draw.layout.aligned` to the
+        frame before); by default the diagram is laid out afresh.
 
     Returns
     -------
@@ -190,7 +193,7 @@ def diagram_svg(diagram: Diagram, labels: bool = False, highlight: Highlight | d
     if isinstance(highlight, dict):
         highlight = Highlight(**{k: tuple(v) for k, v in highlight.items()})
     highlight = highlight or Highlight()
-    lay = layout(diagram)
+    lay = lay if lay is not None else layout(diagram)
     drawn = strands(diagram, lay)
     return render(diagram, lay, drawn, labels, highlight, size, title, gates)
 
