@@ -479,8 +479,9 @@ def _repulsion(pts: np.ndarray, ideal: float) -> tuple[np.ndarray, np.ndarray]:
     its nearest neighbour (at most three ideal lengths: farther ones are not looked for).
 
     The points are binned in square cells three ideal lengths wide, so only the points of a
-    cell and its eight neighbours are compared: linear in the number of points, where comparing
-    every pair was quadratic (2.5 s of the 3.4 s a 100-crossing drawing took).
+    cell and its eight neighbours are compared, all at once in numpy: linear in the number of
+    points, where comparing every pair was quadratic (2.5 s of the 3.4 s a 100-crossing drawing
+    took; now a few milliseconds a round).
 
     >>> force, nearest = _repulsion(np.array([[0.0, 0.0], [1.0, 0.0]]), 1.0)
     >>> force.tolist(), nearest.tolist()
@@ -488,24 +489,37 @@ def _repulsion(pts: np.ndarray, ideal: float) -> tuple[np.ndarray, np.ndarray]:
     """
     n = len(pts)
     reach = 3 * ideal
-    force = np.zeros((n, 2))
-    nearest = np.full(n, reach)
     cells = np.floor(pts / reach).astype(np.int64)
-    members: dict[tuple[int, int], list[int]] = {}
-    for i, (cx, cy) in enumerate(cells.tolist()):
-        members.setdefault((cx, cy), []).append(i)
-    groups = {key: np.asarray(value) for key, value in members.items()}
-    for (cx, cy), own in groups.items():
-        around = [groups[key] for key in ((cx + dx, cy + dy) for dx in (-1, 0, 1) for dy in (-1, 0, 1))
-                  if key in groups]
-        others = np.concatenate(around)
-        delta = pts[own][:, None, :] - pts[others][None, :, :]
-        dist2 = (delta ** 2).sum(axis=2)
-        dist2[own[:, None] == others[None, :]] = np.inf
-        near = dist2 < reach ** 2
-        push = np.where(near, ideal ** 2 / np.where(near, dist2, 1.0), 0.0)
-        force[own] = (delta * push[..., None]).sum(axis=1)
-        nearest[own] = np.minimum(reach, np.sqrt(dist2.min(axis=1)))
+    cells -= cells.min(axis=0) - 1
+    span = int(cells[:, 1].max()) + 2
+    keys = cells[:, 0] * span + cells[:, 1]
+    order = np.argsort(keys, kind="stable")
+    ordered = keys[order]
+    firsts, seconds = [], []
+    for dx in (-1, 0, 1):
+        for dy in (-1, 0, 1):
+            wanted = keys + dx * span + dy
+            start = np.searchsorted(ordered, wanted, "left")
+            count = np.searchsorted(ordered, wanted, "right") - start
+            total = int(count.sum())
+            if not total:
+                continue
+            # every point i against every point of the neighbouring cell, without a Python loop
+            owner = np.repeat(np.arange(n), count)
+            offset = np.arange(total) - np.repeat(np.cumsum(count) - count, count)
+            firsts.append(owner)
+            seconds.append(order[np.repeat(start, count) + offset])
+    first, second = np.concatenate(firsts), np.concatenate(seconds)
+    keep = first != second
+    first, second = first[keep], second[keep]
+    delta = pts[first] - pts[second]
+    dist2 = (delta ** 2).sum(axis=1)
+    near = dist2 < reach ** 2
+    push = np.where(near, ideal ** 2 / np.where(near, dist2, 1.0), 0.0)
+    force = np.stack([np.bincount(first, delta[:, axis] * push, n) for axis in (0, 1)], axis=1)
+    nearest2 = np.full(n, reach ** 2)
+    np.minimum.at(nearest2, first, dist2)
+    nearest = np.sqrt(nearest2)
     return force, nearest
 
 
