@@ -3,7 +3,8 @@
 Run: python tests/bench/bench_draw.py   (writes tests/bench/results/draw.md)
 
 Measured, each the median of repeated runs:
-- drawing a 50-crossing diagram (closures of random 5-strand braid words, fixed seeds) as SVG
+- drawing a 50-crossing diagram (closures of random 5-strand braid words, fixed seeds) as SVG,
+  and a 100-crossing one (8 strands) with and without labels
   with labels (goal: under 2 s);
 - the HTML report of a 40-step movie of random legal moves (goal: under 10 s), the checking
   of the movie itself timed apart;
@@ -72,6 +73,19 @@ def main() -> int:
             reads = f"no: {err}"
         lines.append(f"| braid closure, seed {seed} | {diagram.crossing_count()} | {median:.3f} | {fastest:.3f} | {reads} |")
         ok &= median < 2.0
+    lines += ["", "## A 100-crossing diagram as SVG, without and with labels (goal: under 1 s)", "",
+              "| diagram | crossings | median (s) | with labels, median (s) | drawing reads back |", "|---|---|---|---|---|"]
+    for seed in (1, 2, 3):
+        rng = random.Random(seed)
+        diagram = from_braid([rng.choice([1, -1]) * rng.randint(1, 7) for _ in range(100)], strands=8)
+        plain, _ = timed(lambda: diagram_svg(diagram), 5)
+        labelled, _ = timed(lambda: diagram_svg(diagram, labels=True), 5)
+        try:
+            check_drawing(diagram, diagram_svg(diagram), visible=False)
+            reads = "yes"
+        except AssertionError as err:
+            reads = f"no: {err}"
+        lines.append(f"| braid closure, seed {seed} | {diagram.crossing_count()} | {plain:.3f} | {labelled:.3f} | {reads} |")
     lines += ["", "## The HTML report of a 40-step movie (goal: under 10 s)", "",
               "| seed | steps | frames | most crossings | checking (s) | report (s) | page size (kB) |",
               "|---|---|---|---|---|---|---|"]
