@@ -838,3 +838,66 @@ def aligned(lay: Layout, previous: Layout | None) -> Layout:
         bounds=lay.bounds,
     )
 
+
+def settled(diagram: Diagram, lay: Layout, previous: Layout | None) -> Layout:
+    """The layout with what it shares with ``previous`` moved back toward where it was.
+
+    After :func:`aligned`, the crossings a step did not touch may still sit elsewhere, since
+    each frame is laid out on its own. This moves each shared crossing, and each edge whose two
+    ends are the same shared crossings as before, the fraction ``t`` of the way to its old place
+    (the other edges keep their points and follow their ends), for the largest ``t`` of 1, 0.6,
+    0.3 that keeps the drawing planar and every crossing's ends counterclockwise in PD order
+    (else it would draw the mirror image); with none, the layout comes back as it is.
+
+    >>> from movies.diagram.constructors import from_braid
+    >>> d = from_braid([1, 1, 1])
+    >>> lay = layout(d)
+    >>> settled(d, lay, lay).crossings == lay.crossings
+    True
+    """
+    if previous is None or lay.bounds != previous.bounds or lay.circles or previous.circles:
+        return lay
+    shared = [c for c in lay.crossings if c in previous.crossings]
+    if not shared:
+        return lay
+    kept = [e for e in lay.edges if e in previous.edges and e in diagram.edge_ends
+            and previous.edges[e][0] == previous.crossings.get(diagram.edge_ends[e][0].crossing)
+            and previous.edges[e][-1] == previous.crossings.get(diagram.edge_ends[e][1].crossing)
+            and diagram.edge_ends[e][0].crossing in shared and diagram.edge_ends[e][1].crossing in shared
+            and len(previous.edges[e]) == len(lay.edges[e])]
+
+    def blend(p: Point, q: Point, t: float) -> Point:
+        return (p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1]))
+
+    for t in (1.0, 0.6, 0.3):
+        crossings = dict(lay.crossings)
+        for c in shared:
+            crossings[c] = blend(lay.crossings[c], previous.crossings[c], t)
+        edges = {}
+        for e, pts in lay.edges.items():
+            if e in kept:
+                pts = [blend(p, q, t) for p, q in zip(pts, previous.edges[e])]
+            tail, head = diagram.edge_ends[e]
+            edges[e] = [crossings[tail.crossing]] + list(pts[1:-1]) + [crossings[head.crossing]]
+        if crossings_between([edges[e] for e in sorted(edges)]) or not _in_pd_order(diagram, crossings, edges):
+            continue
+        points = dict(lay.face_points)
+        return Layout(crossings=crossings, edges=edges, circles=lay.circles, face_points=points, bounds=lay.bounds)
+    return lay
+
+
+def _in_pd_order(diagram: Diagram, crossings: dict, edges: dict) -> bool:
+    """Whether at every crossing the four ends leave counterclockwise in PD order."""
+    for name, labels in diagram.crossings.items():
+        x, y = crossings[name]
+        angles = []
+        for position, edge in enumerate(labels):
+            tail, _ = diagram.edge_ends[edge]
+            pts = edges[edge]
+            q = pts[1] if (tail.crossing, tail.position) == (name, position) else pts[-2]
+            angles.append(math.atan2(q[1] - y, q[0] - x))
+        turns = [(angles[(k + 1) % 4] - angles[k]) % (2 * math.pi) for k in range(4)]
+        if abs(sum(turns) - 2 * math.pi) > 1e-6 or min(turns) < 1e-9:
+            return False
+    return True
+
