@@ -67,31 +67,72 @@ def crossings_between(polylines: list[list[Point]], closed: list[bool] | None = 
     if not starts:
         return []
     a, b = np.asarray(starts, dtype=float), np.asarray(ends, dtype=float)
-    lo, hi = np.minimum(a, b), np.maximum(a, b)
+    i, j = _candidate_pairs(np.minimum(a, b), np.maximum(a, b))
     found: list[tuple[int, int, int, int, Point]] = []
-    n = len(a)
-    chunk = 256
-    for first in range(0, n, chunk):
-        rows = slice(first, min(n, first + chunk))
-        ra, rb, rlo, rhi = a[rows, None], b[rows, None], lo[rows, None], hi[rows, None]
-        overlap = (rlo[..., 0] <= hi[None, :, 0]) & (lo[None, :, 0] <= rhi[..., 0]) & \
-                  (rlo[..., 1] <= hi[None, :, 1]) & (lo[None, :, 1] <= rhi[..., 1])
-        index = np.arange(first, min(n, first + chunk))[:, None]
-        overlap &= np.arange(n)[None, :] > index
-        pairs = np.argwhere(overlap)
-        if not len(pairs):
-            continue
-        i = pairs[:, 0] + first
-        j = pairs[:, 1]
-        p, r = a[i], b[i] - a[i]
-        q, s = a[j], b[j] - a[j]
-        denom = r[:, 0] * s[:, 1] - r[:, 1] * s[:, 0]
-        qp = q - p
-        with np.errstate(divide="ignore", invalid="ignore"):
-            t = (qp[:, 0] * s[:, 1] - qp[:, 1] * s[:, 0]) / denom
-            u = (qp[:, 0] * r[:, 1] - qp[:, 1] * r[:, 0]) / denom
-        ok = (np.abs(denom) > 1e-300) & (t > tolerance) & (t < 1 - tolerance) & (u > tolerance) & (u < 1 - tolerance)
-        for k in np.nonzero(ok)[0]:
-            point = p[k] + t[k] * r[k]
-            found.append((owner[i[k]], order[i[k]], owner[j[k]], order[j[k]], (float(point[0]), float(point[1]))))
+    if not len(i):
+        return found
+    p, r = a[i], b[i] - a[i]
+    q, s = a[j], b[j] - a[j]
+    denom = r[:, 0] * s[:, 1] - r[:, 1] * s[:, 0]
+    qp = q - p
+    with np.errstate(divide="ignore", invalid="ignore"):
+        t = (qp[:, 0] * s[:, 1] - qp[:, 1] * s[:, 0]) / denom
+        u = (qp[:, 0] * r[:, 1] - qp[:, 1] * r[:, 0]) / denom
+    ok = (np.abs(denom) > 1e-300) & (t > tolerance) & (t < 1 - tolerance) & (u > tolerance) & (u < 1 - tolerance)
+    for k in np.nonzero(ok)[0]:
+        point = p[k] + t[k] * r[k]
+        found.append((owner[i[k]], order[i[k]], owner[j[k]], order[j[k]], (float(point[0]), float(point[1]))))
     return found
+
+
+def _candidate_pairs(lo: np.ndarray, hi: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """The pairs ``i < j`` of segments whose bounding boxes meet (boxes ``lo``-``hi``).
+
+    The boxes are filed under the cells of a grid (a few typical segment lengths wide) that
+    they cover; only boxes sharing a cell are compared, all at once in numpy. Linear in the
+    number of segments for drawings whose segments are short, where comparing every pair was
+    quadratic.
+
+    >>> lo = np.array([[0.0, 0.0], [0.5, 0.5], [5.0, 5.0]])
+    >>> i, j = _candidate_pairs(lo, lo + 1.0)
+    >>> list(zip(i.tolist(), j.tolist()))
+    [(0, 1)]
+    """
+    n = len(lo)
+    size = np.maximum(hi - lo, 0.0).max(axis=1)
+    cell = max(float(np.median(size)) * 4, 1e-12)
+    first = np.floor(lo / cell).astype(np.int64)
+    last = np.floor(hi / cell).astype(np.int64)
+    spans = (last - first + 1)
+    if int(spans.prod(axis=1).max()) > 64:  # a few long segments: their own comparisons, all pairs
+        cell = max(float(size.max()), 1e-12)
+        first = np.floor(lo / cell).astype(np.int64)
+        last = np.floor(hi / cell).astype(np.int64)
+        spans = last - first + 1
+    base = first.min(axis=0)
+    first, last = first - base, last - base
+    width = int(last[:, 1].max()) + 2
+    segs, keys = [], []
+    for dx in range(int(spans[:, 0].max())):
+        for dy in range(int(spans[:, 1].max())):
+            use = (dx < spans[:, 0]) & (dy < spans[:, 1])
+            index = np.nonzero(use)[0]
+            segs.append(index)
+            keys.append((first[index, 0] + dx) * width + first[index, 1] + dy)
+    seg, key = np.concatenate(segs), np.concatenate(keys)
+    order = np.lexsort((seg, key))
+    seg, key = seg[order], key[order]
+    group_end = np.searchsorted(key, key, "right")
+    count = group_end - np.arange(len(key)) - 1  # later entries in the same cell
+    total = int(count.sum())
+    if not total:
+        return np.zeros(0, dtype=np.int64), np.zeros(0, dtype=np.int64)
+    left = np.repeat(np.arange(len(key)), count)
+    right = left + 1 + (np.arange(total) - np.repeat(np.cumsum(count) - count, count))
+    i, j = seg[left], seg[right]
+    i, j = np.minimum(i, j), np.maximum(i, j)
+    pair = np.unique(i[i != j] * n + j[i != j])
+    i, j = pair // n, pair % n
+    meets = (lo[i, 0] <= hi[j, 0]) & (lo[j, 0] <= hi[i, 0]) & (lo[i, 1] <= hi[j, 1]) & (lo[j, 1] <= hi[i, 1])
+    return i[meets], j[meets]
+
