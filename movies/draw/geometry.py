@@ -89,9 +89,9 @@ def _candidate_pairs(lo: np.ndarray, hi: np.ndarray) -> tuple[np.ndarray, np.nda
     """The pairs ``i < j`` of segments whose bounding boxes meet (boxes ``lo``-``hi``).
 
     The boxes are filed under the cells of a grid (a few typical segment lengths wide) that
-    they cover; only boxes sharing a cell are compared, all at once in numpy. Linear in the
-    number of segments for drawings whose segments are short, where comparing every pair was
-    quadratic.
+    they cover; only boxes sharing a cell are compared, all at once in numpy, and the few long
+    segments (more than 16 cells) with every segment. Linear in the number of segments for
+    drawings whose segments are short, where comparing every pair was quadratic.
 
     >>> lo = np.array([[0.0, 0.0], [0.5, 0.5], [5.0, 5.0]])
     >>> i, j = _candidate_pairs(lo, lo + 1.0)
@@ -103,33 +103,38 @@ def _candidate_pairs(lo: np.ndarray, hi: np.ndarray) -> tuple[np.ndarray, np.nda
     cell = max(float(np.median(size)) * 4, 1e-12)
     first = np.floor(lo / cell).astype(np.int64)
     last = np.floor(hi / cell).astype(np.int64)
-    spans = (last - first + 1)
-    if int(spans.prod(axis=1).max()) > 64:  # a few long segments: their own comparisons, all pairs
-        cell = max(float(size.max()), 1e-12)
-        first = np.floor(lo / cell).astype(np.int64)
-        last = np.floor(hi / cell).astype(np.int64)
-        spans = last - first + 1
-    base = first.min(axis=0)
-    first, last = first - base, last - base
-    width = int(last[:, 1].max()) + 2
-    segs, keys = [], []
-    for dx in range(int(spans[:, 0].max())):
-        for dy in range(int(spans[:, 1].max())):
-            use = (dx < spans[:, 0]) & (dy < spans[:, 1])
-            index = np.nonzero(use)[0]
-            segs.append(index)
-            keys.append((first[index, 0] + dx) * width + first[index, 1] + dy)
-    seg, key = np.concatenate(segs), np.concatenate(keys)
-    order = np.lexsort((seg, key))
-    seg, key = seg[order], key[order]
-    group_end = np.searchsorted(key, key, "right")
-    count = group_end - np.arange(len(key)) - 1  # later entries in the same cell
-    total = int(count.sum())
-    if not total:
+    spans = last - first + 1
+    long_ = spans.prod(axis=1) > 16  # the few long segments are compared with every segment
+    short = np.nonzero(~long_)[0]
+    lefts, rights = [], []
+    if len(short):
+        base = first[short].min(axis=0)
+        first, last, spans = first[short] - base, last[short] - base, spans[short]
+        width = int(last[:, 1].max()) + 2
+        segs, keys = [], []
+        for dx in range(int(spans[:, 0].max())):
+            for dy in range(int(spans[:, 1].max())):
+                index = np.nonzero((dx < spans[:, 0]) & (dy < spans[:, 1]))[0]
+                segs.append(short[index])
+                keys.append((first[index, 0] + dx) * width + first[index, 1] + dy)
+        seg, key = np.concatenate(segs), np.concatenate(keys)
+        order = np.lexsort((seg, key))
+        seg, key = seg[order], key[order]
+        count = np.searchsorted(key, key, "right") - np.arange(len(key)) - 1  # later entries in the cell
+        total = int(count.sum())
+        if total:
+            left = np.repeat(np.arange(len(key)), count)
+            right = left + 1 + (np.arange(total) - np.repeat(np.cumsum(count) - count, count))
+            lefts.append(seg[left])
+            rights.append(seg[right])
+    for k in np.nonzero(long_)[0]:
+        meets = (lo[k, 0] <= hi[:, 0]) & (lo[:, 0] <= hi[k, 0]) & (lo[k, 1] <= hi[:, 1]) & (lo[:, 1] <= hi[k, 1])
+        others = np.nonzero(meets)[0]
+        lefts.append(np.full(len(others), k))
+        rights.append(others)
+    if not lefts:
         return np.zeros(0, dtype=np.int64), np.zeros(0, dtype=np.int64)
-    left = np.repeat(np.arange(len(key)), count)
-    right = left + 1 + (np.arange(total) - np.repeat(np.cumsum(count) - count, count))
-    i, j = seg[left], seg[right]
+    i, j = np.concatenate(lefts), np.concatenate(rights)
     i, j = np.minimum(i, j), np.maximum(i, j)
     pair = np.unique(i[i != j] * n + j[i != j])
     i, j = pair // n, pair % n
