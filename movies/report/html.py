@@ -38,6 +38,14 @@ STYLE = """
 .mv-report code, .mv-report pre { font-family: ui-monospace, monospace; font-size: 0.92em; }
 .mv-report .mv-unproved { color: #a4540b; font-weight: 600; }
 .mv-report .mv-row { display: flex; gap: 18px; align-items: flex-start; margin: 10px 0; }
+.mv-report .mv-strip-label { font-size: 0.88em; color: #3c4350; cursor: pointer; }
+.mv-report .mv-strip-toggle:checked ~ .mv-frames { display: flex; gap: 6px; overflow-x: auto; align-items: flex-start; }
+.mv-report .mv-strip-toggle:checked ~ .mv-frames .mv-next,
+.mv-report .mv-strip-toggle:checked ~ .mv-frames .mv-legend { display: none; }
+.mv-report .mv-strip-toggle:checked ~ .mv-frames .mv-row { flex: 0 0 auto; }
+.mv-report .mv-strip-toggle:checked ~ .mv-frames svg.diagram { width: 160px; height: auto; }
+.mv-report .mv-strip-toggle:checked ~ .mv-frames figure.mv-frame { width: 170px; }
+.mv-report .mv-strip-toggle:checked ~ .mv-frames figure.mv-frame figcaption { font-size: 0.72em; }
 .mv-report figure.mv-frame { margin: 0; background: #ffffff; border: 1px solid #d9d4c7; border-radius: 6px;
   padding: 6px; }
 .mv-report figure.mv-frame figcaption { font-size: 0.88em; color: #3c4350; margin: 0 0 4px 4px; }
@@ -86,7 +94,10 @@ def _twist_box(frame, record):
 
 
 def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
-    out = ['<p class="mv-legend">Edge names sit beside their edges in the colour of their component, '
+    out = ['<input type="checkbox" id="mv-strip" class="mv-strip-toggle">'
+           '<label for="mv-strip" class="mv-strip-label">show the frames side by side, small</label>',
+           '<div class="mv-frames">',
+           '<p class="mv-legend">Edge names sit beside their edges in the colour of their component, '
            "crossing names in small circles, face names in grey italics. In each frame the place of the "
            "next move is marked: faces shaded, edges traced, crossings ringed.</p>"]
     statements = result.movie.steps
@@ -137,6 +148,7 @@ def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
         elif index == len(result.frames) - 1:
             out.append('<div class="mv-next"><div>the last frame</div></div>')
         out.append("</div>")
+    out.append("</div>")
     return out
 
 

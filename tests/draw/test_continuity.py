@@ -54,3 +54,16 @@ def test_a_settled_frame_still_reads_back():
         svgs = re.findall(r'<svg xmlns="http://www.w3.org/2000/svg" class="diagram".*?</svg>', movie_html(result), re.S)
         for frame, text in zip(result.frames, svgs):
             check_drawing(frame, text, visible=frame.piece_count() == 1)
+
+
+
+def test_the_report_offers_the_frames_side_by_side():
+    # a checkbox before the frames turns them into a strip of small drawings (CSS only: the same drawings)
+    result = check_movie(EXAMPLES / "square-knot-ribbon.movie")
+    page = movie_html(result)
+    toggle = page.index('<input type="checkbox" id="mv-strip" class="mv-strip-toggle">')
+    frames = page.index('<div class="mv-frames">')
+    assert toggle < frames
+    inside = page[frames:page.index("<h2>", frames)]
+    assert len(re.findall(r'<svg xmlns="http://www.w3.org/2000/svg" class="diagram"', inside)) == len(result.frames)
+    assert ".mv-strip-toggle:checked ~ .mv-frames { display: flex;" in page
