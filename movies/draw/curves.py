@@ -26,8 +26,8 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from movies.diagram.model import Diagram, UNDER_IN, UNDER_OUT
-from movies.draw.geometry import crossings_between, sample
-from movies.draw.layout import Layout, Point
+from movies.draw.geometry import counterclockwise, crossings_between, sample
+from movies.draw.layout import Layout, Point, dart_point
 
 #: (how straight through crossings, how round the corners), gentlest last; (0, 0) is the layout itself
 SETTINGS = ((1.0, 0.5), (0.6, 0.4), (0.3, 0.25), (0.0, 0.12), (0.0, 0.0))
@@ -59,18 +59,6 @@ class Strands:
 def _unit(x: float, y: float) -> Point:
     length = math.hypot(x, y)
     return (x / length, y / length) if length > 0 else (1.0, 0.0)
-
-
-def _angles_in_order(vectors: list[Point], margin: float) -> bool:
-    """True when the vectors run counterclockwise, each turn at least ``margin`` radians."""
-    angles = [math.atan2(v[1], v[0]) for v in vectors]
-    total = 0.0
-    for k in range(4):
-        turn = (angles[(k + 1) % 4] - angles[k]) % (2 * math.pi)
-        if turn < margin:
-            return False
-        total += turn
-    return abs(total - 2 * math.pi) < 1e-6
 
 
 def _round(points: list[Point], smooth: float, closed: bool = False) -> list[tuple]:
@@ -152,9 +140,7 @@ def _attempt(diagram: Diagram, lay: Layout, straight: float, smooth: float) -> S
     for name, point in lay.crossings.items():
         darts = []
         for position, edge in enumerate(diagram.crossings[name]):
-            tail, head = diagram.edge_ends[edge]
-            pts = lay.edges[edge]
-            neighbour = pts[1] if (tail.crossing, tail.position) == (name, position) else pts[-2]
+            neighbour = dart_point(diagram, lay.edges, name, position)
             darts.append((neighbour[0] - point[0], neighbour[1] - point[1]))
         reach[name] = 0.4 * min([math.hypot(*d) for d in darts] + [clearance[name]])
         own = [_unit(*d) for d in darts]
@@ -166,7 +152,7 @@ def _attempt(diagram: Diagram, lay: Layout, straight: float, smooth: float) -> S
                 straightest = _unit(own[k][0] - opposite[0], own[k][1] - opposite[1])
                 bent.append(_unit((1 - amount) * own[k][0] + amount * straightest[0],
                                   (1 - amount) * own[k][1] + amount * straightest[1]))
-            if amount == 0.0 or _angles_in_order(bent, math.radians(25)):
+            if amount == 0.0 or counterclockwise(bent, math.radians(25)):
                 chosen = bent
                 break
         for k in range(4):

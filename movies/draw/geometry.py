@@ -11,9 +11,42 @@ quadratic Bézier with control point ``c``); consecutive pieces share their end 
 
 from __future__ import annotations
 
+import math
+
 import numpy as np
 
 Point = tuple[float, float]
+
+
+def counterclockwise(vectors: list[Point], margin: float = 1e-9) -> bool:
+    """True when the four vectors run counterclockwise once round, each turn at least ``margin``
+    radians (the ends at a crossing in PD order, when the picture is not the mirror image).
+
+    >>> counterclockwise([(1, 0), (0, 1), (-1, 0), (0, -1)]), counterclockwise([(1, 0), (0, -1), (-1, 0), (0, 1)])
+    (True, False)
+    """
+    angles = [math.atan2(v[1], v[0]) for v in vectors]
+    total = 0.0
+    for k in range(4):
+        turn = (angles[(k + 1) % 4] - angles[k]) % (2 * math.pi)
+        if turn < margin:
+            return False
+        total += turn
+    return abs(total - 2 * math.pi) < 1e-6
+
+
+def expand_ranges(starts: np.ndarray, counts: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
+    """For ranges ``starts[i] .. starts[i] + counts[i] - 1``: each position with the range it is in,
+    as two flat arrays, without a Python loop (for listing pairs of points or segments in grid cells).
+
+    >>> owner, position = expand_ranges(np.array([5, 0]), np.array([2, 3]))
+    >>> owner.tolist(), position.tolist()
+    ([0, 0, 1, 1, 1], [5, 6, 0, 1, 2])
+    """
+    total = int(counts.sum())
+    owner = np.repeat(np.arange(len(counts)), counts)
+    offset = np.arange(total) - np.repeat(np.cumsum(counts) - counts, counts)
+    return owner, np.repeat(starts, counts) + offset
 
 
 def sample(curve: list[tuple], steps: int = 6) -> list[Point]:
@@ -121,12 +154,9 @@ def _candidate_pairs(lo: np.ndarray, hi: np.ndarray) -> tuple[np.ndarray, np.nda
         order = np.lexsort((seg, key))
         seg, key = seg[order], key[order]
         count = np.searchsorted(key, key, "right") - np.arange(len(key)) - 1  # later entries in the cell
-        total = int(count.sum())
-        if total:
-            left = np.repeat(np.arange(len(key)), count)
-            right = left + 1 + (np.arange(total) - np.repeat(np.cumsum(count) - count, count))
-            lefts.append(seg[left])
-            rights.append(seg[right])
+        left, right = expand_ranges(np.arange(len(key)) + 1, count)
+        lefts.append(seg[left])
+        rights.append(seg[right])
     for k in np.nonzero(long_)[0]:
         meets = (lo[k, 0] <= hi[:, 0]) & (lo[:, 0] <= hi[k, 0]) & (lo[k, 1] <= hi[:, 1]) & (lo[:, 1] <= hi[k, 1])
         others = np.nonzero(meets)[0]

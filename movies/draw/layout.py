@@ -28,7 +28,7 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from movies.diagram.model import Diagram, Side
-from movies.draw.geometry import crossings_between
+from movies.draw.geometry import counterclockwise, crossings_between, expand_ranges
 
 #: subdivision points on each edge (at least 2, so that the subdivided graph is simple)
 SUBDIVISION = 3
@@ -46,6 +46,9 @@ REWEIGHTING = 1
 WEIGHT_POWER = 1.0
 
 Point = tuple[float, float]
+
+#: where the outer face's name goes: the top-left corner, outside every piece
+OUTER_LABEL = (-1.05, 1.12)
 
 
 @dataclass
@@ -161,7 +164,6 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
         opened = refine(solved, adjacency, boundary, triangles, drawn, strokes, REFINEMENT, arms)
         points = [index[key] for key in index if key[0] == "c"]
         room = _room(opened, points, strokes)
-        plain = None
         choices = [opened]
         if room < ROOMY and arms:
             # the crossings opened, unless that crowds some crossing much more than the plain springs do
@@ -323,10 +325,7 @@ def _open_kinks(diagram: Diagram, crossings: dict[int, Point], edges: dict[int, 
         labels = diagram.crossings[name]
 
         def direction(position: int) -> float:
-            other = labels[position]
-            t, h = diagram.edge_ends[other]
-            pts = edges[other]
-            q = pts[1] if (t.crossing, t.position) == (name, position) else pts[-2]
+            q = dart_point(diagram, edges, name, position)
             return math.atan2(q[1] - c[1], q[0] - c[0])
 
         before, after = direction((first - 1) % 4), direction((first + 2) % 4)
@@ -501,14 +500,10 @@ def _repulsion(pts: np.ndarray, ideal: float) -> tuple[np.ndarray, np.ndarray]:
             wanted = keys + dx * span + dy
             start = np.searchsorted(ordered, wanted, "left")
             count = np.searchsorted(ordered, wanted, "right") - start
-            total = int(count.sum())
-            if not total:
-                continue
-            # every point i against every point of the neighbouring cell, without a Python loop
-            owner = np.repeat(np.arange(n), count)
-            offset = np.arange(total) - np.repeat(np.cumsum(count) - count, count)
+            # every point against every point of the neighbouring cell, without a Python loop
+            owner, position = expand_ranges(start, count)
             firsts.append(owner)
-            seconds.append(order[np.repeat(start, count) + offset])
+            seconds.append(order[position])
     first, second = np.concatenate(firsts), np.concatenate(seconds)
     keep = first != second
     first, second = first[keep], second[keep]
@@ -792,7 +787,7 @@ def layout(diagram: Diagram) -> Layout:
     place_region(root, None, disks)
     rows = math.ceil(count / columns) if count else 1
     # the outer face's label sits in the top-left corner, outside every piece
-    result.face_points[root] = (-1.05, 1.12)
+    result.face_points[root] = OUTER_LABEL
     width = 2.3 * (min(count, columns) - 1) if count else 0.0
     result.bounds = (-1.15, -2.3 * (rows - 1) - 1.15, width + 1.15, 1.25)
     return result
@@ -834,7 +829,7 @@ def aligned(lay: Layout, previous: Layout | None) -> Layout:
         crossings={c: rotate(p) for c, p in lay.crossings.items()},
         edges={e: [rotate(p) for p in pts] for e, pts in lay.edges.items()},
         circles={e: (rotate(centre), r, ccw) for e, (centre, r, ccw) in lay.circles.items()},
-        face_points={f: (p if p == (-1.05, 1.12) else rotate(p)) for f, p in lay.face_points.items()},
+        face_points={f: (p if p == OUTER_LABEL else rotate(p)) for f, p in lay.face_points.items()},
         bounds=lay.bounds,
     )
 
@@ -890,14 +885,22 @@ def _in_pd_order(diagram: Diagram, crossings: dict, edges: dict) -> bool:
     """Whether at every crossing the four ends leave counterclockwise in PD order."""
     for name, labels in diagram.crossings.items():
         x, y = crossings[name]
-        angles = []
-        for position, edge in enumerate(labels):
-            tail, _ = diagram.edge_ends[edge]
-            pts = edges[edge]
-            q = pts[1] if (tail.crossing, tail.position) == (name, position) else pts[-2]
-            angles.append(math.atan2(q[1] - y, q[0] - x))
-        turns = [(angles[(k + 1) % 4] - angles[k]) % (2 * math.pi) for k in range(4)]
-        if abs(sum(turns) - 2 * math.pi) > 1e-6 or min(turns) < 1e-9:
+        darts = [dart_point(diagram, edges, name, position) for position in range(4)]
+        if not counterclockwise([(q[0] - x, q[1] - y) for q in darts]):
             return False
     return True
 
+
+def dart_point(diagram: Diagram, edges: dict, name: int, position: int) -> Point:
+    """The first point after crossing ``name`` on the edge at its slot ``position``.
+
+    >>> from movies.diagram.constructors import from_braid
+    >>> d = from_braid([1, 1])
+    >>> lay = layout(d)
+    >>> dart_point(d, lay.edges, 1, 0) in (lay.edges[d.crossings[1][0]][1], lay.edges[d.crossings[1][0]][-2])
+    True
+    """
+    edge = diagram.crossings[name][position]
+    tail, _ = diagram.edge_ends[edge]
+    pts = edges[edge]
+    return pts[1] if (tail.crossing, tail.position) == (name, position) else pts[-2]

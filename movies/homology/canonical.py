@@ -34,7 +34,7 @@ from movies.errors import HomologyError, InternalError
 from movies.homology.rings import Ring, parse_field
 from movies.homology.scanning import CarriedClass, FinalComplex, finish, scan_complex
 
-__all__ = ["CanonicalComplex", "canonical_complex", "canonical_s", "s_from_canonical", "checkerboard"]
+__all__ = ["CanonicalComplex", "canonical_complex", "canonical_chain", "read_canonical", "canonical_s", "s_from_canonical", "checkerboard"]
 
 
 @dataclass
@@ -110,16 +110,30 @@ def canonical_complex(diagram: Diagram, progress=None, degrees=None) -> Canonica
     if not diagram.crossings or diagram.loops:
         raise HomologyError("the canonical class is carried through diagrams whose every circle has a crossing")
     pd = [tuple(c) for c in diagram.pd_code()]
-    smoothing = {diagram.crossings[name]: 0 if diagram.signs[name] > 0 else 1 for name in diagram.crossings}
-    colour = checkerboard(diagram)
-    minus_h = frozenset(edge for edge in diagram.edges() if colour[diagram.faces_beside(edge)[0]])
-    chain = CarriedClass(smoothing, minus_h)
     n_plus = sum(1 for s in diagram.signs.values() if s > 0)
     n_minus = len(diagram.signs) - n_plus
     window = None if degrees is None else (degrees[0] + n_minus, degrees[1] + n_minus)
-    cx = scan_complex(pd, Ring("Z", 0), scan_order(pd), progress, carried=[chain], degrees=window)
-    final = finish(cx, n_plus, n_minus)
-    q = diagram.writhe() - diagram.seifert_circle_count()
+    cx = scan_complex(pd, Ring("Z", 0), scan_order(pd), progress, carried=[canonical_chain(diagram)], degrees=window)
+    return read_canonical(finish(cx, n_plus, n_minus), diagram.writhe() - diagram.seifert_circle_count())
+
+
+def canonical_chain(diagram: Diagram) -> CarriedClass:
+    """α_o, ready to be carried through a scan of ``diagram``'s PD tuples (or of any diagram
+    whose crossings are among them and whose faces are coloured alike, as in a family of twists):
+    the oriented smoothing at each crossing, and the edges whose circles are labelled X − H.
+
+    >>> from movies.diagram.pd import from_pd
+    >>> sorted(canonical_chain(from_pd([[4, 2, 3, 1], [2, 4, 1, 3]])).smoothing.values())
+    [0, 0]
+    """
+    smoothing = {diagram.crossings[name]: 0 if diagram.signs[name] > 0 else 1 for name in diagram.crossings}
+    colour = checkerboard(diagram)
+    minus_h = frozenset(edge for edge in diagram.edges() if colour[diagram.faces_beside(edge)[0]])
+    return CarriedClass(smoothing, minus_h)
+
+
+def read_canonical(final: FinalComplex, q: int) -> CanonicalComplex:
+    """The final complex with the carried α_o, checked to be a cycle of degree (0, q = w − O)."""
     cycle = final.carried[0]
     _check_cycle(final, cycle, q)
     return CanonicalComplex(final, cycle, q)

@@ -7,11 +7,11 @@ the top of the k-th twist are joined to the ends the common part leaves at the t
 arcs that cross nothing (:func:`~movies.homology.scanning.close_arcs`): that is L(k), read without
 rescanning anything. The complex before the joining goes on to L(k + 1).
 
-The plan is read off the diagram L(max(K, 2)) that :func:`~movies.diagram.handles.twisted` makes
+The plan is read off the diagram L(max(K, 3)) that :func:`~movies.diagram.handles.twisted` makes
 (the crossings of each box are named in the order of the braid word, one full twist after
-another), so every member is exactly the diagram ``twisted(link, k)``: its crossings (with their
-signs), its loops and its Seifert circles are compared with that diagram before anything is
-computed from it.
+another). Before anything is computed, every member as planned is checked to join every end of
+its crossings exactly once and to have the components of L(0); the tests compare each member
+with the diagram ``twisted(link, k)`` scanned alone.
 
 >>> from movies.diagram.handles import fibers
 >>> plan = twist_family(fibers(1, 1), 3)
@@ -31,7 +31,7 @@ from movies.diagram.model import Diagram
 from movies.diagram.moves.twist import twist
 from movies.diagram.scan_order import scan_order
 from movies.errors import InternalError
-from movies.homology.canonical import CanonicalComplex, _check_cycle, checkerboard, s_from_canonical
+from movies.homology.canonical import canonical_chain, read_canonical, s_from_canonical
 from movies.homology.rings import Ring, parse_field
 from movies.homology.scanning import CarriedClass, Complex, FinalComplex, add_crossing, close_arcs, finish
 from movies.unionfind import partition_roots
@@ -238,11 +238,8 @@ def family_complexes(plan: TwistFamily, ring: Ring, degrees: tuple[int, int] | N
     cx = Complex(ring)
     start = cx.add_object(0, (), 0)
     if canonical:
-        smoothing = {c: 0 if s > 0 else 1 for c, s in plan.signs.items()}
-        whole = plan.whole
-        colour = checkerboard(whole)
-        minus_h = frozenset(edge for edge in whole.edges() if colour[whole.faces_beside(edge)[0]])
-        cx.carried.append(CarriedClass(smoothing, minus_h, coords={start: {0: 1}}))
+        chain = canonical_chain(plan.whole)  # the plan's PD tuples are those of the whole diagram
+        cx.carried.append(CarriedClass(chain.smoothing, chain.minus_h, coords={start: {0: 1}}))
     boundary: list = []
 
     def window(done: int, members) -> tuple[int, int] | None:
@@ -299,9 +296,7 @@ def family_s(link: HandleDiagram, most: int, fields: Sequence[str] = ("Q",), sto
         return result
     for k, final in family_complexes(plan, Ring("Z", 0), S_DEGREES, canonical=True):
         q = plan.plus[abs(k)] - plan.minus[abs(k)] - plan.seifert[abs(k)]  # writhe minus Seifert circles
-        cycle = final.carried[0]
-        _check_cycle(final, cycle, q)
-        canonical = CanonicalComplex(final, cycle, q)
+        canonical = read_canonical(final, q)
         result[k] = {field: s_from_canonical(canonical, parse_field(field).name) for field in fields}
         if stop is not None and stop(k, result[k]):
             break

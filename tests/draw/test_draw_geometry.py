@@ -23,10 +23,24 @@ def _proper_exact(p, q, r, s) -> bool:
     return orient(p, q, r) * orient(p, q, s) < 0 and orient(r, s, p) * orient(r, s, q) < 0
 
 
-@pytest.mark.parametrize("seed", range(6))
+def _wiggle(rng, steps):
+    """A polyline of short steps and a few long ones (the grid of cells and the long-segment path)."""
+    x, y = rng.randint(0, 40) / 4, rng.randint(0, 40) / 4
+    line = [(x, y)]
+    for _ in range(steps):
+        reach = rng.choice([1, 1, 1, 20])
+        x, y = x + rng.randint(-reach, reach) / 8, y + rng.randint(-reach, reach) / 8
+        line.append((x, y))
+    return line
+
+
+@pytest.mark.parametrize("seed", range(12))
 def test_crossings_between_agrees_with_exact_orientation_tests(seed):
     rng = random.Random(seed)
-    lines = [[(rng.randint(0, 40) / 4, rng.randint(0, 40) / 4) for _ in range(rng.randint(2, 6))] for _ in range(6)]
+    if seed < 6:
+        lines = [[(rng.randint(0, 40) / 4, rng.randint(0, 40) / 4) for _ in range(rng.randint(2, 6))] for _ in range(6)]
+    else:
+        lines = [_wiggle(rng, rng.randint(5, 40)) for _ in range(5)]
     expected = set()
     segments = [(i, k, line[k], line[k + 1]) for i, line in enumerate(lines) for k in range(len(line) - 1)]
     for x in range(len(segments)):
