@@ -20,37 +20,33 @@ from __future__ import annotations
 
 import math
 import time
+from itertools import combinations
 
 from movies.bounds.verdicts import search_genus_bounds
 from movies.checker import search
 from movies.checker.replay import check_movie
+from movies.checker.changes import crossing_change_moves, orientable_band, seifert_genus, seifert_moves, switched
 from movies.checker.ribbon import SearchResult, band_candidates
 from movies.diagram.model import Diagram
-from movies.diagram.steps import MoveRecord, perform
-from movies.errors import MoveError, MoviesError
-from movies.invariants.alexander import determinant
+from movies.diagram.steps import MoveRecord
+from movies.invariants.alexander import alexander_polynomial, determinant
 from movies.invariants.jones import jones_polynomial
 from movies.invariants.signature import signature
 from movies.language.spec import parse_diagram
 
-__all__ = ["find_surface", "crossing_change_bands", "switched"]
+__all__ = ["find_surface"]
 
 
 def _banded(record: MoveRecord, diagram: Diagram, components: int):
     """The frame a band leaves when it respects the orientation and leaves ``components`` components."""
-    try:
-        outcome = perform(record, diagram)
-    except MoveError:
-        return None
-    if outcome.diagram.component_count() != components or outcome.transition.twisted:
-        return None
-    if any(not same for _, _, same in outcome.transition.links):
+    outcome = orientable_band(record, diagram)
+    if outcome is None or outcome.diagram.component_count() != components:
         return None
     return outcome.diagram
 
 
 def _pairs(diagram: Diagram, paths: bool):
-    """(split band, join band, knot left) for every genus-one piece from ``diagram``, in a fixed order.
+    """((split band, join band), knot left) for every genus-one piece from ``diagram``, in a fixed order.
 
     With ``paths`` the join may also run along a path over or under one edge (a crossing change
     needs that at some crossings)."""
@@ -64,65 +60,7 @@ def _pairs(diagram: Diagram, paths: bool):
                 continue
             after = _banded(second, middle, 1)
             if after is not None:
-                yield first, second, after
-
-
-def switched(diagram: Diagram, crossing: int) -> Diagram:
-    """The diagram with ``crossing`` changed (the other strand over), names kept.
-
-    >>> switched(parse_diagram("3_1"), 1).writhe()
-    1
-    """
-    from movies.diagram.pd import from_pd
-
-    names = sorted(diagram.crossings)
-    code = [tuple(c) for c in diagram.pd_code()]
-    index = names.index(crossing)
-    a, b, c, d = code[index]
-    for rotated in ((b, c, d, a), (d, a, b, c)):  # read from the old over-strand's incoming edge
-        trial = code[:index] + [rotated] + code[index + 1:]
-        try:
-            result = from_pd(trial, diagram.loop_count())
-        except MoviesError:
-            continue
-        if result.writhe() == diagram.writhe() - 2 * diagram.signs[crossing]:
-            return result
-    raise MoveError(f"crossing {crossing} could not be changed")  # pragma: no cover - one rotation always reads
-
-
-def crossing_change_bands(diagram: Diagram, crossing: int, budget: float = 1.0) -> tuple[MoveRecord, MoveRecord] | None:
-    """Two bands (a split at a corner of ``crossing``, then a join) that change that crossing, up to isotopy.
-
-    A crossing change is a genus-one piece: the oriented resolution of the crossing is one band
-    away from either sign. The pair is found by trying the corner bands and the joins after them
-    against the switched diagram (Jones polynomial, then the Reidemeister search).
-
-    >>> first, second = crossing_change_bands(parse_diagram("3_1"), 1)
-    >>> perform(second, perform(first, parse_diagram("3_1")).diagram).diagram.component_count()
-    1
-    """
-    target = switched(diagram, crossing)
-    target_jones = jones_polynomial(target)
-    corner_edges = set(diagram.crossing(crossing))
-    pairs = []
-    for first in band_candidates(diagram):
-        if first.first not in corner_edges or first.second not in corner_edges or first.first == first.second:
-            continue
-        middle = _banded(first, diagram, diagram.component_count() + 1)
-        if middle is None:
-            continue
-        pairs.append((first, middle))
-    for paths in (False, True):  # a join across a face first, then one along a path over or under an edge
-        for first, middle in pairs:
-            for second in band_candidates(middle, paths=paths):
-                if second.first == second.second:
-                    continue
-                after = _banded(second, middle, diagram.component_count())
-                if after is None or jones_polynomial(after) != target_jones:
-                    continue
-                if search.certify(after, target, budget).certified:
-                    return first, second
-    return None
+                yield (first, second), after
 
 
 def find_surface(knot: str, budget: float = 60.0, most_genus: int | None = None, beam: int = 3,
@@ -186,39 +124,43 @@ def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -
             return search.simplify_frame(after, {"target": "crossingless"}, search_budget).reached
         return search.certify(after, target, search_budget).certified
 
+    def done() -> SearchResult:
+        report.seconds = time.perf_counter() - started
+        return report
+
     least = max(b.bound for b in search_genus_bounds(start, None if to is None else target))
+    fallback = None
+    if to is None:  # surfaces by construction first: crossing changes, then Seifert's algorithm
+        fallback = _constructed(report, knot, start, least, started + budget * CONSTRUCTED_SHARE, search_budget,
+                                progress)
+        if report.verdict == "verified":
+            return done()
     slice_tries = 0
     if most_genus is None:
         most_genus = max(3, least + 1)
+    if fallback is not None:  # the band search only looks below the genus already built
+        most_genus = min(most_genus, fallback[0] - 1)
+    genus = 0
     for genus in range(1, most_genus + 1):
-        if genus >= least:  # the cheap guess first: change `genus` crossings, each by its pair of bands
-            for chain, after in _crossing_changes(start, genus, started, budget):
-                report.tried += 1
-                if reaches(after) and _write(report, knot, chain, genus, search_budget, to):
-                    report.seconds = time.perf_counter() - started
-                    return report
         scored = []
         for records, frame in level:
             # below the bound no surface can end here: the next level comes from crossing changes alone
             pieces = _pairs(frame, paths=genus == 1) if genus >= least else _single_changes(frame)
-            for first, second, after in pieces:
+            for moves, after in pieces:
                 now = time.perf_counter()
                 if progress is not None and now - said > 2:
                     said = now
                     progress(f"surface search for {knot}: genus {genus}, {report.tried} pieces in {now - started:.0f} s")
                 if now - started > budget:
                     report.why = f"it ran out of time ({budget:g} seconds) at genus {genus} after {report.tried} pieces"
-                    report.seconds = time.perf_counter() - started
-                    return report
+                    return done() if fallback is None else _fall_back(report, knot, start, fallback, search_budget, done)
                 report.tried += 1
-                chain = records + (first, second)
+                chain = records + moves
                 if genus >= least and reaches(after) and _write(report, knot, chain, genus, search_budget, to):
-                    report.seconds = time.perf_counter() - started
-                    return report
+                    return done()
                 if (genus >= least and to is None and slice_tries < MOST_SLICE_ENDS
                         and _slice_end(report, knot, chain, genus, after, search_budget)):
-                    report.seconds = time.perf_counter() - started
-                    return report
+                    return done()
                 slice_tries += _looks_slice(after) if to is None and genus >= least else 0
                 det = abs(determinant(after))
                 scored.append(((abs(signature(after) - target_signature) // 2, abs(det - target_det),
@@ -227,38 +169,145 @@ def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -
         level = [(chain, after) for _, _, chain, after in scored[:beam]]
         if not level:
             break
-    report.why = f"no surface of genus at most {most_genus} found ({report.tried} genus-one pieces tried)"
-    report.seconds = time.perf_counter() - started
-    return report
+    report.why = (f"no surface of genus at most {genus} found by the band search ({report.tried} genus-one pieces tried)"
+                  if genus else "")
+    return done() if fallback is None else _fall_back(report, knot, start, fallback, search_budget, done)
+
+
+#: the share of the budget for surfaces by construction (crossing changes, then Seifert's algorithm)
+CONSTRUCTED_SHARE = 0.5
+#: seconds the Reidemeister search may take to simplify the knot left by a set of crossing changes
+SCREEN_BUDGET = 0.1
+
+
+def _constructed(report: SearchResult, knot: str, start: Diagram, least: int, until: float, search_budget: float,
+                 progress) -> tuple[int, tuple[int, ...], Diagram] | None:
+    """Surfaces by construction: k crossing changes (k = 0, 1, ... up to the lower bound), then the
+    Seifert surface of the knot they leave, simplified (genus k + its Seifert genus), or, with k at
+    the bound, a ribbon disk for it. Writes the first surface that meets the bound into ``report``;
+    otherwise returns the least genus built, the crossings changed and the simplified knot left
+    (the Seifert surface of ``start`` itself at worst).
+
+    Each set of changes is screened on the switched diagram first (cheap): the Alexander
+    polynomial must allow the Seifert genus still needed (its span is at most twice the genus),
+    then the Reidemeister search simplifies it for a short time. Only a set that passes is
+    written as moves and checked as a movie."""
+    best = (seifert_genus(start), (), start)
+    if best[0] == least and _seifert_end(report, knot, (), least, start, None, search_budget):
+        return None
+    said = time.perf_counter()
+    slice_tries = 0
+    for count in range(1, least + 1):
+        for crossings in combinations(sorted(start.crossings), count):
+            now = time.perf_counter()
+            if now > until:
+                return best
+            if progress is not None and now - said > 2:
+                said = now
+                progress(f"surface search for {knot}: changing {count} crossings ({', '.join(map(str, crossings))})")
+            frame = start
+            for crossing in crossings:
+                frame = switched(frame, crossing)
+            left = least - count
+            polynomial = alexander_polynomial(frame)
+            if polynomial.span() > 2 * left and not (left == 0 and _looks_slice(frame)):
+                continue
+            simplified = search.simplify_frame(frame, {"target": "fewest"}, SCREEN_BUDGET).diagram
+            genus = count + seifert_genus(simplified)
+            if genus < best[0]:
+                best = (genus, crossings, simplified)
+            if genus == least and _changed_end(report, knot, start, crossings, simplified, search_budget):
+                return None
+            if (left == 0 and slice_tries < MOST_SLICE_ENDS and _looks_slice(simplified)):
+                slice_tries += 1
+                chain, after = _change_chain(start, crossings, search_budget)
+                if chain is not None and _slice_end(report, knot, chain, least, after, search_budget):
+                    return None
+    return best
+
+
+def _change_chain(start: Diagram, crossings: tuple[int, ...], search_budget: float):
+    """The moves that change ``crossings`` one after another and then simplify, and the frame left."""
+    chain: tuple = ()
+    frame = start
+    for crossing in crossings:
+        changed = crossing_change_moves(frame, crossing)
+        if changed is None:
+            return None, None
+        chain += changed[0]
+        frame = changed[1]
+    simplified = search.simplify_frame(frame, {"target": "fewest"}, search_budget)
+    return chain + simplified.records, simplified.diagram
+
+
+def _changed_end(report: SearchResult, knot: str, start: Diagram, crossings: tuple[int, ...], screened: Diagram,
+                 search_budget: float) -> bool:
+    """Write the crossing changes, then the Seifert surface of the knot left; checked as a movie.
+    Where the movie's own simplification lands on a diagram of larger Seifert genus than the
+    screen's, the movie claims the screen's diagram instead (``isotopic to``; the checker proves it)."""
+    chain, after = _change_chain(start, crossings, search_budget)
+    if chain is None:
+        return False
+    genus = len(crossings) + seifert_genus(after)
+    if genus == len(crossings) + seifert_genus(screened):
+        return _seifert_end(report, knot, chain, genus, after, None, search_budget)
+    return _seifert_end(report, knot, chain, len(crossings) + seifert_genus(screened), screened, _spec(screened),
+                        search_budget)
+
+
+def _spec(diagram: Diagram) -> str:
+    return "pd[" + ",".join("[" + ",".join(map(str, labels)) + "]" for labels in diagram.crossings.values()) + "]"
+
+
+def _seifert_end(report: SearchResult, knot: str, chain: tuple, genus: int, frame: Diagram, claimed: str | None,
+                 search_budget: float) -> bool:
+    """The movie: ``chain`` (crossing changes and simplification), optionally ``isotopic to claimed``
+    (whose diagram is ``frame``), then Seifert's algorithm on ``frame`` and the circles' deaths."""
+    if claimed is not None:
+        frame = parse_diagram(claimed)
+    if frame.component_count() != 1:
+        return False
+    moves, circles = seifert_moves(frame)
+    lines = [f"title a surface of genus {genus} for {knot}: "
+             + (f"{_changes_said(chain)}, then " if chain else "") + "Seifert's algorithm", f"start {knot}"]
+    lines += [str(r) for r in chain] + ([f"isotopic to {claimed}"] if claimed else [])
+    lines += [str(r) for r in moves] + [f"death {c}" for c in sorted(circles.components)]
+    lines.append(f"surface connected, genus {genus}")
+    text = "\n".join(lines) + "\n"
+    checked = check_movie(text, budget=search_budget)
+    if checked.verdict != "verified":
+        return False
+    report.genus, report.movie, report.verdict = genus, text, checked.verdict
+    report.bands = tuple(str(r) for r in tuple(chain) + moves if getattr(r, "kind", "") == "band")
+    return True
+
+
+def _changes_said(chain: tuple) -> str:
+    count = sum(1 for r in chain if getattr(r, "kind", "") == "band" and r.twists)
+    return f"{count} crossing change{'s' if count != 1 else ''}"
+
+
+def _fall_back(report: SearchResult, knot: str, start: Diagram, fallback, search_budget: float, done):
+    """After the band search: the least genus built by construction, written and checked."""
+    genus, crossings, screened = fallback
+    why = report.why
+    if crossings:
+        written = _changed_end(report, knot, start, crossings, screened, search_budget)
+    else:
+        written = _seifert_end(report, knot, (), genus, start, None, search_budget)
+    if written:
+        report.why = (f"{why}; " if why else "") + (
+            f"no surface of genus {report.genus - 1} or less was found; the surface of genus {report.genus} "
+            "given is built by crossing changes and Seifert's algorithm")
+    return done()
 
 
 def _single_changes(frame: Diagram):
-    """(split band, join band, knot left) for each crossing that its pair of bands changes."""
+    """(moves, knot left) for each crossing changed by its genus-one piece."""
     for crossing in sorted(frame.crossings):
-        pair = crossing_change_bands(frame, crossing)
-        if pair is not None:
-            yield pair[0], pair[1], perform(pair[1], perform(pair[0], frame).diagram).diagram
-
-
-def _crossing_changes(start: Diagram, count: int, started: float, budget: float):
-    """(bands, knot left) for every set of ``count`` crossings changed one after another, in order."""
-    from itertools import combinations
-
-    for crossings in combinations(sorted(start.crossings), count):
-        chain: tuple[MoveRecord, ...] = ()
-        frame = start
-        for crossing in crossings:
-            if time.perf_counter() - started > budget or crossing not in frame.crossings:
-                break
-            pair = crossing_change_bands(frame, crossing)
-            if pair is None:
-                break
-            frame = perform(pair[1], perform(pair[0], frame).diagram).diagram
-            chain += pair
-        else:
-            yield chain, frame
-        if time.perf_counter() - started > budget:
-            return
+        changed = crossing_change_moves(frame, crossing)
+        if changed is not None:
+            yield changed
 
 
 #: how many knots left by the genus-one pieces a search tries to finish with a ribbon disk
