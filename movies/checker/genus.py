@@ -1,15 +1,19 @@
-"""Finding surfaces of small genus: pairs of bands down to the unknot, written as a movie and checked.
+"""Finding surfaces of small genus, written as a movie and checked.
 
-A connected surface of genus g from a knot to the unknot is, read inward, g pairs of bands (one
-splits the knot, the next joins the two pieces again: a genus-one piece; a crossing change is one
-such pair, the join sometimes along a path over or under one edge), then the unknot dies. It
-first changes sets of crossings (each by its pair of bands), as many as the lower bound from s,
-the signature and Fox–Milnor and then more; then it runs a beam search over these pairs: from
-each frame it keeps, it tries every split band and every join after it (both respecting the orientation),
-and it keeps the few knots that look nearest to the unknot: smallest lower bound from the
-signature, then smallest determinant, then fewest crossings. A knot whose determinant and Jones
-polynomial are the unknot's goes to the Reidemeister search; when that removes every crossing,
-the bands become a movie that :func:`movies.checker.replay.check_movie` must verify.
+First by construction (:mod:`movies.checker.changes`): k crossing changes, each a genus-one
+piece, then the Seifert surface of the knot they leave, simplified (genus k + its Seifert genus),
+for k up to the lower bound from s, the signatures and Fox–Milnor; each set of crossings is
+screened on the switched diagram (the Alexander polynomial's span, then a short Reidemeister
+search) before it is written as moves.
+
+Then by search: a connected surface of genus g from a knot to the unknot is, read inward, g
+pairs of bands (one splits the knot, the next joins the two pieces again: a genus-one piece; the
+join sometimes along a path over or under one edge), then the unknot dies. A beam search over
+these pairs keeps, from each frame, the few knots that look nearest to the unknot: smallest lower
+bound from the signature, then smallest determinant, then fewest crossings. A knot whose
+determinant and Jones polynomial are the unknot's goes to the Reidemeister search; when that
+removes every crossing, the bands become a movie that :func:`movies.checker.replay.check_movie`
+must verify. Where nothing meets the bound, the least genus built is given, and said.
 
 >>> found = find_surface("5_2", budget=30)
 >>> found.verdict, found.genus
