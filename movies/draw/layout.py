@@ -23,7 +23,7 @@ face's polygon; crossingless circles are circles. Coordinates are plain floats, 
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 
 import numpy as np
 
@@ -58,7 +58,9 @@ class Layout:
     ``crossings``: crossing -> its point. ``edges``: edge -> polyline from its tail crossing
     through its subdivision points to its head crossing. ``circles``: crossingless edge ->
     (centre, radius, counterclockwise). ``face_points``: face -> a point inside it (for its
-    label). ``bounds``: (xmin, ymin, xmax, ymax) of everything.
+    label). ``bounds``: (xmin, ymin, xmax, ymax) of everything. ``outer``: the face drawn
+    outermost; ``outside``: the edges around it (the next frame of a movie keeps that face
+    outside if it can).
     """
 
     crossings: dict[int, Point] = field(default_factory=dict)
@@ -66,6 +68,8 @@ class Layout:
     circles: dict[int, tuple[Point, float, bool]] = field(default_factory=dict)
     face_points: dict[int, Point] = field(default_factory=dict)
     bounds: tuple[float, float, float, float] = (-1.0, -1.0, 1.0, 1.0)
+    outside: frozenset[int] = frozenset()
+    outer: int | None = None
 
 
 # ---------------------------------------------------------------------- one piece by Tutte
@@ -94,10 +98,14 @@ def _cycle_walk(diagram: Diagram, cycle: tuple[Side, ...]) -> list[tuple]:
     return walk
 
 
-def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[Side, ...]) -> _PieceGeometry:
+def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[Side, ...],
+                anchors: dict[tuple, Point] | None = None) -> _PieceGeometry:
     """Barycentric embedding of one piece with crossings, its ``outer`` cycle outermost.
 
-    Parameters: the diagram, the face cycles of the piece, and the cycle that faces outwards.
+    Parameters: the diagram, the face cycles of the piece, and the cycle that faces outwards;
+    ``anchors``, where some crossings (``("c", name)``) and edge points (``("e", edge, i)``)
+    were in the frame before: the embedding is turned to match them and the refinement pulls
+    them back there (see :func:`refine`), so that a movie's frames change only where a step acts.
     Returns the piece's geometry inside the unit disk (the outer ring on the unit circle).
 
     >>> from movies.diagram.pd import from_pd
@@ -140,8 +148,9 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
             strokes.append((walk[i], walk[(i + 1) % n]))
         if cycle == outer:
             # clockwise: the outer face is on the left of its cycle
+            angles = _outer_angles(_cycle_walk(diagram, cycle), anchors or {})
             for i, r in enumerate(ring):
-                angle = math.pi / 2 - 2 * math.pi * (i + 0.5) / n
+                angle = (angles[i] + angles[i + 1]) / 2
                 boundary[r] = (math.cos(angle), math.sin(angle))
         else:
             centre = vertex(("f", cycle))
@@ -150,6 +159,7 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
                 link(centre, r)
                 triangles.append((centre, r, ring[(i + 1) % n]))
     solved = _barycentric(len(index), adjacency, boundary)
+    pinned = _turned_to(solved, index, anchors) if anchors else None
     arms = []  # each crossing with the first point of its four edges, counterclockwise (PD order)
     kinked = {label for labels in diagram.crossings.values() if len(set(labels)) < 4 for label in labels}
     for name in sorted({key[1] for key in index if key[0] == "c"}):
@@ -160,9 +170,16 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
             tail, _ = diagram.edge_ends[edge]
             row.append(index[("e", edge, 1 if tuple(tail) == (name, position) else SUBDIVISION)])
         arms.append(row)
-    if REFINEMENT:
+    points = [index[key] for key in index if key[0] == "c"]
+    anchored, anchored_room = None, 0.0
+    if REFINEMENT and pinned is not None:
+        trial = refine(pinned[0], adjacency, boundary, triangles, drawn, strokes, REFINEMENT, arms, pinned[1:])
+        if _planar(trial, strokes):
+            anchored, anchored_room = trial, _room(trial, points, strokes)
+    if REFINEMENT and anchored is not None and anchored_room >= ANCHORED_ROOM:
+        solved = anchored
+    elif REFINEMENT:
         opened = refine(solved, adjacency, boundary, triangles, drawn, strokes, REFINEMENT, arms)
-        points = [index[key] for key in index if key[0] == "c"]
         room = _room(opened, points, strokes)
         choices = [opened]
         if room < ROOMY and arms:
@@ -177,6 +194,10 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
             if _planar(refined, strokes):
                 solved = refined
                 break
+        # held in place, a step's new crossings can be squeezed: the anchored picture is kept only
+        # if it leaves every crossing at least half the room the picture laid out alone leaves
+        if anchored is not None and anchored_room >= 0.5 * _room(solved, points, strokes):
+            solved = anchored
 
     def at(key: tuple) -> Point:
         x, y = solved[index[key]]
@@ -196,6 +217,45 @@ def tutte_piece(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[S
     polygons = {cycle: _polygon(edges, cycle) for cycle in cycles if cycle != outer}
     face_centres = {cycle: at(("f", cycle)) for cycle in centres}
     return _PieceGeometry(crossings, edges, polygons, face_centres)
+
+
+def _outer_angles(walk: list[tuple], anchors: dict[tuple, Point]) -> list[float]:
+    """Angles on the unit circle for the vertices of the outer walk (clockwise), and the first
+    again less a turn: evenly spaced, or, where at least two of them are anchored, near the
+    angles of their anchors (the others spaced evenly between them), so that a movie's frame
+    keeps its outside where it was.
+
+    >>> [round(a, 3) for a in _outer_angles([("c", 1), ("c", 2)], {})]
+    [1.571, -1.571, -4.712]
+    >>> [round(a, 3) for a in _outer_angles([("c", 1), ("c", 2), ("c", 3)], {("c", 1): (1, 0), ("c", 2): (0, -1)})]
+    [0.0, -1.676, -3.979, -6.283]
+    """
+    n = len(walk)
+    even = [math.pi / 2 - 2 * math.pi * i / n for i in range(n + 1)]
+    marked = [i for i, key in enumerate(walk) if key in anchors]
+    if len(marked) < 2:
+        return even
+    turn = 2 * math.pi
+    raw = {i: math.atan2(anchors[walk[i]][1], anchors[walk[i]][0]) for i in marked}
+    value = {marked[0]: raw[marked[0]]}
+    for before, after in zip(marked, marked[1:]):  # clockwise: each angle at most the one before
+        value[after] = value[before] - (value[before] - raw[after]) % turn
+    if value[marked[0]] - value[marked[-1]] >= turn:
+        return even  # pragma: no cover - the modulo keeps a walk of anchors within one turn
+    value[marked[0] + n] = value[marked[0]] - turn
+    angles = [0.0] * n
+    stops = marked + [marked[0] + n]
+    for a, b in zip(stops, stops[1:]):
+        for j in range(a, b):
+            # indices before the first anchor come round at the end of the turn: one turn up
+            angles[j % n] = value[a] + (value[b] - value[a]) * (j - a) / (b - a) + (turn if j >= n else 0.0)
+    # a blend with even spacing keeps every gap open
+    blended = [ANCHORED_SPACING * angles[i] + (1 - ANCHORED_SPACING) * (angles[0] - turn * i / n) for i in range(n)]
+    return blended + [blended[0] - turn]
+
+
+#: how closely the outer ring follows the anchors (the rest: evenly spaced)
+ANCHORED_SPACING = 0.8
 
 
 def _polygon(edges: dict[int, list[Point]], cycle: tuple[Side, ...]) -> list[Point]:
@@ -247,12 +307,14 @@ def turned_inside_out(geometry: _PieceGeometry, cycles: list[tuple[Side, ...]], 
     return _PieceGeometry(crossings, edges, polygons, {})
 
 
-def piece_geometry(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[Side, ...]) -> _PieceGeometry:
+def piece_geometry(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tuple[Side, ...],
+                   anchors: dict[tuple, Point] | None = None) -> _PieceGeometry:
     """The better of two pictures of a piece whose outside face is ``outer``.
 
     Tutte's embedding with ``outer`` outside crowds the rest when ``outer`` is small (a kink's
     monogon facing out leaves the piece hanging from one crossing); the embedding with the
     longest face outside, turned inside out, often has more room. Whichever is less crowded wins.
+    With ``anchors`` (see :func:`tutte_piece`) only the first, to stay like the frame before.
 
     >>> from movies.diagram.pd import from_pd
     >>> d = from_pd([[1, 1, 2, 2]])
@@ -260,9 +322,9 @@ def piece_geometry(diagram: Diagram, cycles: list[tuple[Side, ...]], outer: tupl
     >>> sorted(piece_geometry(d, cycles, min(cycles, key=len)).edges)
     [1, 2]
     """
-    chosen = direct = tutte_piece(diagram, cycles, outer)
+    chosen = direct = tutte_piece(diagram, cycles, outer, anchors)
     longest = max(cycles, key=lambda c: (len(c), c))
-    if len(longest) > len(outer):
+    if len(longest) > len(outer) and not anchors:  # anchored to the frame before: keep its outside
         turned = turned_inside_out(tutte_piece(diagram, cycles, longest), cycles, outer)
         # the turned picture has its segments halved: compare like with like
         # inversion bends segments into arcs: keep the turned picture only if it is still planar
@@ -557,7 +619,7 @@ def _room(xy: np.ndarray, centres: list[int], strokes: list[tuple[int, int]]) ->
 
 
 def refine(xy: np.ndarray, adjacency: list[set[int]], boundary: dict[int, Point], triangles: list[tuple[int, int, int]],
-           drawn: int, strokes: list[tuple[int, int]], rounds: int, arms=()) -> np.ndarray:
+           drawn: int, strokes: list[tuple[int, int]], rounds: int, arms=(), anchors=None) -> np.ndarray:
     """Spread a barycentric picture out by springs, never letting a triangle turn over.
 
     Drawn vertices (``0 .. drawn-1``) repel each other and are pulled along the drawn edges
@@ -570,8 +632,12 @@ def refine(xy: np.ndarray, adjacency: list[set[int]], boundary: dict[int, Point]
     those are pushed, each about its crossing, toward four directions a right angle apart (the
     nearest such cross to where they are), so that the strands cross openly.
 
+    ``anchors`` (drawn vertices, their targets): those are pulled toward their targets instead,
+    as far as the triangles let them go.
+
     Parameters: positions, the triangulation (adjacency, fixed boundary, triangles), how many
-    vertices are drawn, the drawn edges, the number of rounds and the arms. Returns new positions.
+    vertices are drawn, the drawn edges, the number of rounds, the arms and the anchors.
+    Returns new positions.
     """
     arms = np.asarray(arms, dtype=int).reshape(-1, 5)
     quarter = np.arange(4) * (np.pi / 2)
@@ -599,6 +665,8 @@ def refine(xy: np.ndarray, adjacency: list[set[int]], boundary: dict[int, Point]
         np.add.at(force, edges[:, 1], -pull)
         if len(arms):
             np.add.at(force, arms[:, 1:].ravel(), _opening(pts, arms, quarter).reshape(-1, 2))
+        if anchors is not None:
+            force[anchors[0]] = ANCHOR_PULL * (anchors[1] - pts[anchors[0]])
         size = np.sqrt((force ** 2).sum(axis=1))
         # a step of at most a third of the distance to the nearest other drawn vertex
         step = np.minimum(size, 0.3 * nearest) * (1 - round_ / rounds)
@@ -623,6 +691,29 @@ def refine(xy: np.ndarray, adjacency: list[set[int]], boundary: dict[int, Point]
 
 
 # ---------------------------------------------------------------------- room inside a face
+
+
+#: room about every crossing at which a picture anchored to the frame before is kept outright
+ANCHORED_ROOM = 0.15
+
+#: how hard an anchored vertex is pulled toward its place in the frame before (per unit of distance)
+ANCHOR_PULL = 10.0
+
+
+def _turned_to(solved: np.ndarray, index: dict[tuple, int], anchors: dict[tuple, Point]):
+    """The embedding turned about the centre (never reflected) to best match the anchored
+    crossings, with the anchors as (vertex indices, targets); None with fewer than two."""
+    keys = [key for key in anchors if key in index]
+    if sum(key[0] == "c" for key in keys) < 2:
+        return None
+    where = np.array([index[key] for key in keys], dtype=int)
+    target = np.array([anchors[key] for key in keys], dtype=float)
+    now = solved[where, 0] + 1j * solved[where, 1]
+    total = complex((target[:, 0] + 1j * target[:, 1]) @ np.conj(now))
+    if abs(total) < 1e-12:
+        return None
+    turned = (solved[:, 0] + 1j * solved[:, 1]) * (total / abs(total))
+    return np.stack([turned.real, turned.imag], axis=1), where, target
 
 
 def inscribed_disk(polygon: list[Point], hint: Point | None = None, rounds: int = 4) -> tuple[Point, float]:
@@ -678,14 +769,31 @@ def _walk_length(diagram: Diagram, region: tuple[tuple[Side, ...], ...]) -> int:
     return sum(len(cycle) for cycle in region)
 
 
-def outer_face(diagram: Diagram) -> int:
-    """The face drawn outermost: the one touching most pieces, then the longest, then the first.
+def outer_face(diagram: Diagram, before: frozenset[int] = frozenset()) -> int:
+    """The face drawn outermost: the one with most of the edges ``before`` (the edges around the
+    face outside in the frame before, in a movie), then the one touching most pieces, then the
+    longest, then the first.
 
     >>> from movies.diagram.pd import from_pd
-    >>> outer_face(from_pd([[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]))  # a three-sided face
-    2
+    >>> d = from_pd([[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]])
+    >>> outer_face(d), outer_face(d, frozenset({2, 4, 6}))  # a three-sided face; the other one
+    (2, 3)
     """
-    return min(diagram.faces, key=lambda f: (-len(diagram.faces[f]), -_walk_length(diagram, diagram.faces[f]), f))
+    def kept(f: int) -> int:
+        return len(before.intersection(side.edge for cycle in diagram.faces[f] for side in cycle))
+
+    return min(diagram.faces, key=lambda f: (-kept(f), -len(diagram.faces[f]), -_walk_length(diagram, diagram.faces[f]), f))
+
+
+def drawn_outside(diagram: Diagram, lay: Layout) -> int:
+    """The face a layout draws outermost (in a movie it may differ from :func:`outer_face`).
+
+    >>> from movies.diagram.constructors import from_braid
+    >>> d = from_braid([1, 1, 1])
+    >>> drawn_outside(d, layout(d)) == outer_face(d)
+    True
+    """
+    return lay.outer if lay.outer is not None else outer_face(diagram)
 
 
 class _Transform:
@@ -714,10 +822,13 @@ def _children_disks(centre: Point, radius: float, count: int, label: bool) -> tu
     return disks, spot
 
 
-def layout(diagram: Diagram) -> Layout:
+def layout(diagram: Diagram, previous: Layout | None = None) -> Layout:
     """A planar straight-line skeleton of the whole diagram (see the module docstring).
 
-    Parameters: a diagram. Returns a :class:`Layout` with a point for every crossing and
+    Parameters: a diagram; ``previous``, the layout of the frame before in a movie: where both
+    are drawn as one piece, the crossings they share and the edges that still join the same
+    crossings are pulled back to where they were (see :func:`tutte_piece`).
+    Returns a :class:`Layout` with a point for every crossing and
     face, a polyline for every edge and a circle for every crossingless edge.
 
     >>> from movies.diagram.constructors import unlink
@@ -731,7 +842,10 @@ def layout(diagram: Diagram) -> Layout:
         result.face_points = {name: (0.0, 0.0) for name in diagram.faces}
         result.bounds = (-1.15, -0.3, 1.15, 0.3)
         return result
-    root = outer_face(diagram)
+    follow = previous is not None and previous.bounds == ONE_PIECE
+    root = outer_face(diagram, previous.outside if follow else frozenset())
+    result.outer = root
+    result.outside = frozenset(side.edge for cycle in diagram.faces[root] for side in cycle)
     cycle_piece = _cycle_piece(diagram)
     pieces = diagram.pieces()
     piece_cycles: dict[int, list[tuple[Side, ...]]] = {}
@@ -751,7 +865,7 @@ def layout(diagram: Diagram) -> Layout:
         result.face_points[region] = spot
         place_region(region, arriving, disks)
 
-    def place_piece(piece: int, outer: tuple[Side, ...], centre: Point, radius: float) -> None:
+    def place_piece(piece: int, outer: tuple[Side, ...], centre: Point, radius: float, anchors=None) -> None:
         edges = pieces[piece]
         move = _Transform(centre, radius)
         if len(edges) == 1 and next(iter(edges)) in diagram.loops:
@@ -763,7 +877,7 @@ def layout(diagram: Diagram) -> Layout:
             inside = [c for c in piece_cycles[piece] if c != outer][0]
             place_inside(side_region[inside], inside, centre, 0.9 * r)
             return
-        geometry = piece_geometry(diagram, piece_cycles[piece], outer)
+        geometry = piece_geometry(diagram, piece_cycles[piece], outer, anchors)
         result.crossings.update({c: move(p) for c, p in geometry.crossings.items()})
         result.edges.update({e: [move(p) for p in pts] for e, pts in geometry.edges.items()})
         for cycle, polygon in geometry.face_polygons.items():
@@ -784,13 +898,67 @@ def layout(diagram: Diagram) -> Layout:
     count = len(roots)
     columns = max(1, math.ceil(math.sqrt(count)))
     disks = [((2.3 * (j % columns), -2.3 * (j // columns)), 1.0) for j in range(count)]
-    place_region(root, None, disks)
+    circles = [cycle for cycle in roots if _is_circle(diagram, pieces[cycle_piece[cycle]])]
+    beside = (follow and 2 <= count <= 1 + len(CORNERS)
+              and len(circles) == count - 1)
+    if (follow and count == 1 and not circles) or beside:
+        # one piece drawn in the unit disk, as before: its own coordinates are the picture's; circles
+        # beside it (born, or about to die) in the corners, so the picture keeps its size
+        (main,) = [cycle for cycle in roots if cycle not in circles]
+        place_piece(cycle_piece[main], main, (0.0, 0.0), 1.0, _anchors(diagram, previous))
+        for cycle, centre in zip(circles, CORNERS):
+            place_piece(cycle_piece[cycle], cycle, centre, CORNER_RADIUS)
+        columns, count = 1, 1
+    else:
+        place_region(root, None, disks)
     rows = math.ceil(count / columns) if count else 1
     # the outer face's label sits in the top-left corner, outside every piece
     result.face_points[root] = OUTER_LABEL
     width = 2.3 * (min(count, columns) - 1) if count else 0.0
     result.bounds = (-1.15, -2.3 * (rows - 1) - 1.15, width + 1.15, 1.25)
     return result
+
+
+#: the bounds of a picture of one piece (or of pieces nested in one)
+ONE_PIECE = (-1.15, -1.15, 1.15, 1.25)
+
+#: where crossingless circles beside one piece go in a movie's frame (the top-left corner holds
+#: the outer face's label), and their disks' radius: outside the unit disk, inside the bounds
+CORNERS = ((1.0, 1.05), (1.0, -1.0), (-1.0, -1.0))
+CORNER_RADIUS = 0.15
+
+
+def _in_corner(point: Point, radius: float = 0.0) -> bool:
+    """Whether a point (or a circle about it) lies in one of the :data:`CORNERS`' disks."""
+    return any(math.dist(point, corner) + radius <= CORNER_RADIUS + 1e-9 for corner in CORNERS)
+
+
+def _is_circle(diagram: Diagram, edges) -> bool:
+    """Whether a piece is one crossingless circle with nothing inside its disk but its faces."""
+    return len(edges) == 1 and next(iter(edges)) in diagram.loops
+
+
+def _anchors(diagram: Diagram, previous: Layout) -> dict[tuple, Point]:
+    """Where the crossings shared with ``previous`` were, and the inner points of the edges that
+    still join the same two shared crossings (``("c", name)``, ``("e", edge, i)``)."""
+    anchors: dict[tuple, Point] = {("c", c): previous.crossings[c] for c in diagram.crossings if c in previous.crossings}
+    for edge in _kept_edges(diagram, previous, {c for _, c in anchors}):
+        for i, point in enumerate(previous.edges[edge][1:-1], start=1):
+            anchors[("e", edge, i)] = point
+    return anchors
+
+
+def _kept_edges(diagram: Diagram, previous: Layout, shared) -> list[int]:
+    """Edges drawn before between the same two shared crossings, with the same number of points."""
+    kept = []
+    for edge, (tail, head) in diagram.edge_ends.items():
+        points = previous.edges.get(edge)
+        if (points is None or len(points) != SUBDIVISION + 2 or tail.crossing not in shared
+                or head.crossing not in shared):
+            continue
+        if points[0] == previous.crossings[tail.crossing] and points[-1] == previous.crossings[head.crossing]:
+            kept.append(edge)
+    return kept
 
 
 def aligned(lay: Layout, previous: Layout | None) -> Layout:
@@ -811,7 +979,7 @@ def aligned(lay: Layout, previous: Layout | None) -> Layout:
     >>> all(math.dist(back.crossings[c], turned.crossings[c]) < 1e-9 for c in lay.crossings)
     True
     """
-    if previous is None or lay.bounds != (-1.15, -1.15, 1.15, 1.25):
+    if previous is None or lay.bounds != ONE_PIECE:
         return lay
     shared = [c for c in lay.crossings if c in previous.crossings]
     if len(shared) < 2:
@@ -825,12 +993,14 @@ def aligned(lay: Layout, previous: Layout | None) -> Layout:
         z = complex(*p) * turn
         return (z.real, z.imag)
 
-    return Layout(
+    return replace(
+        lay,
         crossings={c: rotate(p) for c, p in lay.crossings.items()},
         edges={e: [rotate(p) for p in pts] for e, pts in lay.edges.items()},
-        circles={e: (rotate(centre), r, ccw) for e, (centre, r, ccw) in lay.circles.items()},
-        face_points={f: (p if p == OUTER_LABEL else rotate(p)) for f, p in lay.face_points.items()},
-        bounds=lay.bounds,
+        # circles in the corners stay there: turned, they would leave the picture
+        circles={e: ((centre if _in_corner(centre, r) else rotate(centre)), r, ccw)
+                 for e, (centre, r, ccw) in lay.circles.items()},
+        face_points={f: (p if p == OUTER_LABEL or _in_corner(p) else rotate(p)) for f, p in lay.face_points.items()},
     )
 
 
@@ -855,11 +1025,8 @@ def settled(diagram: Diagram, lay: Layout, previous: Layout | None) -> Layout:
     shared = [c for c in lay.crossings if c in previous.crossings]
     if not shared:
         return lay
-    kept = [e for e in lay.edges if e in previous.edges and e in diagram.edge_ends
-            and previous.edges[e][0] == previous.crossings.get(diagram.edge_ends[e][0].crossing)
-            and previous.edges[e][-1] == previous.crossings.get(diagram.edge_ends[e][1].crossing)
-            and diagram.edge_ends[e][0].crossing in shared and diagram.edge_ends[e][1].crossing in shared
-            and len(previous.edges[e]) == len(lay.edges[e])]
+    kept = [e for e in _kept_edges(diagram, previous, set(shared))
+            if e in lay.edges and len(previous.edges[e]) == len(lay.edges[e])]
 
     def blend(p: Point, q: Point, t: float) -> Point:
         return (p[0] + t * (q[0] - p[0]), p[1] + t * (q[1] - p[1]))
@@ -877,7 +1044,7 @@ def settled(diagram: Diagram, lay: Layout, previous: Layout | None) -> Layout:
         if crossings_between([edges[e] for e in sorted(edges)]) or not _in_pd_order(diagram, crossings, edges):
             continue
         points = dict(lay.face_points)
-        return Layout(crossings=crossings, edges=edges, circles=lay.circles, face_points=points, bounds=lay.bounds)
+        return replace(lay, crossings=crossings, edges=edges, face_points=points)
     return lay
 
 

@@ -22,7 +22,7 @@ from html import escape
 from movies.diagram.model import Diagram, Side
 from movies.draw.curves import Strands, strands
 from movies.draw.geometry import sample
-from movies.draw.layout import Layout, inscribed_disk, layout, outer_face
+from movies.draw.layout import Layout, drawn_outside, inscribed_disk, layout
 
 #: component colours: component n is drawn in PALETTE[(n - 1) % 8], so a component keeps its colour
 #: for as long as it keeps its name (our own choice: strong on white, dark and light in turn, so
@@ -229,12 +229,12 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
     if title:
         out.append(f"<title>{escape(title)}</title>")
     out.append(f'<rect x="0" y="0" width="{_num(width)}" height="{_num(height)}" fill="#ffffff"/>')
-    root = outer_face(diagram) if diagram.faces else None
+    root = drawn_outside(diagram, lay) if diagram.faces else None
     band_parts: tuple[list[str], list[str]] = ([], [])
     if highlight.band is not None:
         first, second, face = highlight.band
         faces = tuple(highlight.faces) if highlight.path else (face,)
-        band_parts = _band(diagram, (first, second, faces, tuple(highlight.path)), drawn, canvas, stroke)
+        band_parts = _band(diagram, (first, second, faces, tuple(highlight.path)), drawn, canvas, stroke, root)
     for face in highlight.faces:
         if band_parts[0] and highlight.band is not None and (face == highlight.band[2] or highlight.path):
             continue  # the band itself is drawn, not its faces
@@ -383,7 +383,8 @@ def _gate(diagram: Diagram, gate, index, drawn: Strands, canvas: _Canvas, stroke
             f'fill="#222222" text-anchor="middle">h{index}</text>']
 
 
-def _band(diagram: Diagram, band: tuple, drawn: Strands, canvas: _Canvas, stroke: float) -> tuple[list[str], list[str]]:
+def _band(diagram: Diagram, band: tuple, drawn: Strands, canvas: _Canvas, stroke: float,
+          root: int | None) -> tuple[list[str], list[str]]:
     """A band drawn as a strip: its two sides and its dashed core, across one face or along a path.
 
     ``band`` is (first edge, second edge, faces, path): one face and no path for a band across a
@@ -434,7 +435,7 @@ def _band(diagram: Diagram, band: tuple, drawn: Strands, canvas: _Canvas, stroke
             if into_face(here, lines[here].index(p), q, face) and into_face(there, lines[there].index(q), p, face) \
                     and clear(p, q):
                 reached[q] = (total, p, [])
-        if not reached and face == outer_face(diagram):
+        if not reached and face == root:
             # across the outer face: out from one edge, round the drawing in the margin, and in
             round_ = _around(lines[here], lines[there], everything, canvas, clear)
             if round_ is not None and (k == 0 or round_[0] in best):
@@ -639,7 +640,7 @@ def _labels(diagram, lay, drawn, canvas, colour_of, stroke) -> list[str]:
     lines = {edge: [canvas(p) for p in sample(drawn.curves[edge])] for edge in drawn.curves}
     crossing_points = {c: canvas(p) for c, p in lay.crossings.items()}
     room = _Room(list(lines.values()), list(crossing_points.values()), stroke)
-    root = outer_face(diagram)
+    root = drawn_outside(diagram, lay)
     for face, point in sorted(lay.face_points.items()):
         cycles = diagram.faces[face]
         if face != root and len(cycles) == 1:

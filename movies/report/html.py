@@ -125,7 +125,7 @@ def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
                    f"{plural(frame.component_count(), 'component')}")
         handles = result.handle_frames[index] if index < len(result.handle_frames) else None
         # each frame turned to match the one before, so that what a step leaves alone stays in place
-        previous = settled(frame, aligned(layout(frame), previous), previous)
+        previous = settled(frame, aligned(layout(frame, previous), previous), previous)
         svg = diagram_svg(frame, labels=True, highlight=highlight, size=size, title=f"frame {index}",
                           gates=handles.gates if handles is not None else (), lay=previous)
         out.append(f'<div class="mv-row" id="frame-{index}"><figure class="mv-frame"><figcaption>{escape(caption)}'
