@@ -961,6 +961,24 @@ def _kept_edges(diagram: Diagram, previous: Layout, shared) -> list[int]:
     return kept
 
 
+def frame_layouts(frames) -> list[Layout]:
+    """The layouts of a movie's frames, each laid out from the one before (:func:`layout` with
+    ``previous``), then turned (:func:`aligned`) and settled (:func:`settled`) toward it: the
+    report and ``movies frames --svg`` draw the same pictures.
+
+    >>> from movies.diagram.constructors import from_braid
+    >>> first, second = frame_layouts([from_braid([1, 1, 1]), from_braid([1, 1, 1])])
+    >>> first.crossings == second.crossings
+    True
+    """
+    out: list[Layout] = []
+    previous = None
+    for frame in frames:
+        previous = settled(frame, aligned(layout(frame, previous), previous), previous)
+        out.append(previous)
+    return out
+
+
 def aligned(lay: Layout, previous: Layout | None) -> Layout:
     """The layout turned about its centre to match the crossings it shares with ``previous``.
 

@@ -18,7 +18,7 @@ from __future__ import annotations
 from html import escape
 
 from movies.checker.result import CheckResult
-from movies.draw.layout import aligned, layout, settled
+from movies.draw.layout import frame_layouts
 from movies.draw.svg import diagram_svg
 from movies.report.movie import as_json, finding_lines, step_note, surface_lines
 from movies.draw.svg import Highlight
@@ -103,7 +103,7 @@ def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
     statements = result.movie.steps
     records = {s["step"]: s for s in data["steps"]}
     stops = {f["step"]: f for f in data["findings"] if f["kind"] == "invalid"}
-    previous = None
+    lays = frame_layouts(result.frames)
     for index, frame in enumerate(result.frames):
         number = index + 1  # the step that acts on this frame
         statement = statements[index] if index < len(statements) else None
@@ -124,10 +124,8 @@ def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
         caption = (f"frame {index} ({what}): {plural(frame.crossing_count(), 'crossing')}, "
                    f"{plural(frame.component_count(), 'component')}")
         handles = result.handle_frames[index] if index < len(result.handle_frames) else None
-        # each frame turned to match the one before, so that what a step leaves alone stays in place
-        previous = settled(frame, aligned(layout(frame, previous), previous), previous)
         svg = diagram_svg(frame, labels=True, highlight=highlight, size=size, title=f"frame {index}",
-                          gates=handles.gates if handles is not None else (), lay=previous)
+                          gates=handles.gates if handles is not None else (), lay=lays[index])
         out.append(f'<div class="mv-row" id="frame-{index}"><figure class="mv-frame"><figcaption>{escape(caption)}'
                    f"</figcaption>{svg}</figure>")
         if statement is not None and number in records:

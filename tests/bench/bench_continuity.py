@@ -23,7 +23,7 @@ ROOT = Path(__file__).resolve().parents[2]
 sys.path.insert(0, str(ROOT / "tests"))
 
 from draw.test_continuity import _mean_displacement  # noqa: E402
-from movies.report import html as html_module  # noqa: E402
+import movies.draw.layout as layout_module  # noqa: E402
 
 RESULTS = Path(__file__).resolve().parent / "results" / "continuity.md"
 
@@ -36,16 +36,16 @@ def main() -> int:
             kept = _mean_displacement(name)
         except ValueError:  # statistics.StatisticsError: no two consecutive frames share a crossing
             continue
-        aligned, settled, layout = html_module.aligned, html_module.settled, html_module.layout
-        html_module.aligned = lambda lay, previous: lay
-        html_module.settled = lambda diagram, lay, previous: lay
+        aligned, settled, layout = layout_module.aligned, layout_module.settled, layout_module.layout
+        layout_module.aligned = lambda lay, previous: lay
+        layout_module.settled = lambda diagram, lay, previous: lay
         try:
-            html_module.layout = lambda diagram, previous=None: layout(diagram)
+            layout_module.layout = lambda diagram, previous=None: layout(diagram)
             fresh = _mean_displacement(name)
-            html_module.aligned, html_module.settled = aligned, settled
+            layout_module.aligned, layout_module.settled = aligned, settled
             turned = _mean_displacement(name)  # each frame laid out alone, then turned and settled
         finally:
-            html_module.aligned, html_module.settled, html_module.layout = aligned, settled, layout
+            layout_module.aligned, layout_module.settled, layout_module.layout = aligned, settled, layout
         rows.append((name, kept, turned, fresh))
     lines = ["# Continuity of the frames in the reports of the example movies", "",
              f"{date.today()}, {os.cpu_count()} cores, Python {platform.python_version()}. Mean move of the crossings "

@@ -12,7 +12,7 @@ import pytest
 
 from draw.readback import read_svg
 from movies.checker.replay import check_movie
-from movies.report import html as html_module
+import movies.draw.layout as layout_module
 from movies.report.html import movie_html
 
 EXAMPLES = Path(__file__).resolve().parents[2] / "examples" / "movies"
@@ -39,10 +39,10 @@ def _mean_displacement(name: str) -> float:
 
 def test_frames_are_turned_and_settled_toward_the_frame_before(monkeypatch):
     kept = [_mean_displacement(name) for name in MOVIES]
-    layout = html_module.layout
-    monkeypatch.setattr(html_module, "layout", lambda diagram, previous=None: layout(diagram))
-    monkeypatch.setattr(html_module, "aligned", lambda lay, previous: lay)
-    monkeypatch.setattr(html_module, "settled", lambda diagram, lay, previous: lay)
+    layout = layout_module.layout
+    monkeypatch.setattr(layout_module, "layout", lambda diagram, previous=None: layout(diagram))
+    monkeypatch.setattr(layout_module, "aligned", lambda lay, previous: lay)
+    monkeypatch.setattr(layout_module, "settled", lambda diagram, lay, previous: lay)
     fresh = [_mean_displacement(name) for name in MOVIES]
     # never worse for a movie, and on these at least a third less in all
     assert all(k <= f + 1e-9 for k, f in zip(kept, fresh)), (kept, fresh)
@@ -95,3 +95,24 @@ def test_the_report_offers_the_frames_side_by_side():
     inside = page[frames:page.index("<h2>", frames)]
     assert len(re.findall(r'<svg xmlns="http://www.w3.org/2000/svg" class="diagram"', inside)) == len(result.frames)
     assert ".mv-strip-toggle:checked ~ .mv-frames { display: flex;" in page
+
+
+def test_frames_svg_draws_the_frame_as_the_report_does(tmp_path, capsys):
+    from movies.cli.main import main
+
+    name = "trefoil-concordance"
+    result = check_movie(EXAMPLES / f"{name}.movie")
+    svgs = re.findall(r'<svg xmlns="http://www.w3.org/2000/svg" class="diagram".*?</svg>', movie_html(result), re.S)
+    out = tmp_path / "frame.svg"
+    for at in (1, 2):
+        assert main(["frames", str(EXAMPLES / f"{name}.movie"), "--at", str(at), "--svg", str(out)]) == 0
+        capsys.readouterr()
+        frame = result.frames[at]
+        places = []
+        for text in (svgs[at], out.read_text()):
+            strands = read_svg(text)["strands"]
+            width = float(re.search(r'width="([0-9.]+)"', text).group(1))
+            places.append({c: tuple(v / width for v in strands[frame.over_edges(c)[0]]["points"][-1])
+                           for c in frame.crossings})
+        assert places[0].keys() == places[1].keys()
+        assert all(math.dist(places[0][c], places[1][c]) < 0.02 for c in places[0])
