@@ -12,12 +12,13 @@ circle, clockwise (the outer face lies on the left of its cycle). Solving the ba
 (Tutte 1963; Floater 2003 for triangulations), and the helpers are dropped.
 
 Split pieces nest: a piece lies in a face of another, so it is drawn into a disk inside that
-face's polygon; crossingless circles are circles. Coordinates are plain floats, y pointing up.
+face's polygon; crossingless circles are circles. A diagram that is a closed braid is drawn as
+one instead (:func:`braid_layout`). Coordinates are plain floats, y pointing up.
 
->>> from movies.diagram.pd import from_pd
->>> lay = layout(from_pd([[1, 5, 2, 4], [3, 1, 4, 6], [5, 3, 6, 2]]))
->>> sorted(lay.crossings), len(lay.edges[1])
-([1, 2, 3], 5)
+>>> from movies.language.spec import parse_diagram
+>>> lay = layout(parse_diagram("5_2"))
+>>> sorted(lay.crossings), len(lay.edges[1]), lay.braid
+([1, 2, 3, 4, 5], 5, False)
 """
 
 from __future__ import annotations
@@ -70,6 +71,8 @@ class Layout:
     bounds: tuple[float, float, float, float] = (-1.0, -1.0, 1.0, 1.0)
     outside: frozenset[int] = frozenset()
     outer: int | None = None
+    #: drawn as a closed braid (the next frame of a movie stays one while it can)
+    braid: bool = False
 
 
 # ---------------------------------------------------------------------- one piece by Tutte
@@ -788,8 +791,8 @@ def outer_face(diagram: Diagram, before: frozenset[int] = frozenset()) -> int:
 def drawn_outside(diagram: Diagram, lay: Layout) -> int:
     """The face a layout draws outermost (in a movie it may differ from :func:`outer_face`).
 
-    >>> from movies.diagram.constructors import from_braid
-    >>> d = from_braid([1, 1, 1])
+    >>> from movies.language.spec import parse_diagram
+    >>> d = parse_diagram("5_2")
     >>> drawn_outside(d, layout(d)) == outer_face(d)
     True
     """
@@ -827,7 +830,8 @@ def layout(diagram: Diagram, previous: Layout | None = None) -> Layout:
 
     Parameters: a diagram; ``previous``, the layout of the frame before in a movie: where both
     are drawn as one piece, the crossings they share and the edges that still join the same
-    crossings are pulled back to where they were (see :func:`tutte_piece`).
+    crossings are pulled back to where they were (see :func:`tutte_piece`). A closed braid is
+    drawn as one (:func:`braid_layout`), in a movie while the frames before were.
     Returns a :class:`Layout` with a point for every crossing and
     face, a polyline for every edge and a circle for every crossingless edge.
 
@@ -836,6 +840,24 @@ def layout(diagram: Diagram, previous: Layout | None = None) -> Layout:
     >>> sorted(lay.circles), sorted(lay.face_points)
     ([1, 2], [1, 2, 3])
     """
+    braided = braid_layout(diagram, previous=previous) if previous is None or previous.braid else None
+    if braided is not None and previous is None:
+        return braided
+    drawn = _laid_out(diagram, previous)
+    if braided is None:
+        return drawn
+    # a frame after a closed braid: as a closed braid again, unless that moves it more
+    return min((braided, drawn), key=lambda lay: _moved(aligned(lay, previous), previous))
+
+
+def _moved(lay: Layout, previous: Layout) -> float:
+    """The mean distance the crossings shared with ``previous`` moved (0 with none shared)."""
+    shared = [c for c in lay.crossings if c in previous.crossings]
+    return sum(math.dist(lay.crossings[c], previous.crossings[c]) for c in shared) / len(shared) if shared else 0.0
+
+
+def _laid_out(diagram: Diagram, previous: Layout | None) -> Layout:
+    """The layout by Tutte's method (see :func:`layout`)."""
     result = Layout()
     if not diagram.faces or not any(diagram.faces.values()):
         # the empty diagram: one face, the whole sphere, and a short strip to name it in
@@ -905,7 +927,13 @@ def layout(diagram: Diagram, previous: Layout | None = None) -> Layout:
         # one piece drawn in the unit disk, as before: its own coordinates are the picture's; circles
         # beside it (born, or about to die) in the corners, so the picture keeps its size
         (main,) = [cycle for cycle in roots if cycle not in circles]
-        place_piece(cycle_piece[main], main, (0.0, 0.0), 1.0, _anchors(diagram, previous))
+        braided = (braid_layout(_without_circles(diagram, circles), root, previous) if circles and previous.braid
+                   else None)
+        if braided is not None:  # still the closed braid it was, with circles beside it
+            result.crossings, result.edges, result.braid = braided.crossings, braided.edges, True
+            result.face_points.update(braided.face_points)
+        else:
+            place_piece(cycle_piece[main], main, (0.0, 0.0), 1.0, _anchors(diagram, previous))
         for cycle, centre in zip(circles, CORNERS):
             place_piece(cycle_piece[cycle], cycle, centre, CORNER_RADIUS)
         columns, count = 1, 1
@@ -959,6 +987,47 @@ def _kept_edges(diagram: Diagram, previous: Layout, shared) -> list[int]:
         if points[0] == previous.crossings[tail.crossing] and points[-1] == previous.crossings[head.crossing]:
             kept.append(edge)
     return kept
+
+
+def braid_layout(diagram: Diagram, outside: int | None = None, previous: Layout | None = None) -> Layout | None:
+    """The diagram drawn as a closed braid (:mod:`movies.draw.braids`), or None where it is not
+    one or no picture of it passes the checks (planar, every crossing in PD order); with
+    ``outside``, only a picture with that face outside; with ``previous`` (a movie's frame
+    before), columns and levels where its crossings were.
+
+    >>> from movies.diagram.constructors import torus_link
+    >>> lay = braid_layout(torus_link(3, 4))
+    >>> lay.braid, len(lay.crossings)
+    (True, 8)
+    """
+    from movies.draw.braids import braid_drawings, braid_plan
+
+    plan = braid_plan(diagram)
+    if plan is None:
+        return None
+    for crossings, edges, outer in braid_drawings(diagram, plan, previous.crossings if previous else None):
+        if outside is not None and outer != outside:
+            continue
+        if not _in_pd_order(diagram, crossings, edges) or crossings_between([edges[e] for e in sorted(edges)]):
+            continue
+        faces: dict[int, Point] = {}
+        for face, (cycle,) in diagram.faces.items():
+            inner = plan.inner if outer == plan.outer else plan.outer
+            faces[face] = OUTER_LABEL if face == outer else (0.0, 0.0) if face == inner else \
+                inscribed_disk(_polygon(edges, cycle))[0]
+        around = frozenset(side.edge for cycle in diagram.faces[outer] for side in cycle)
+        return Layout(crossings, edges, {}, faces, ONE_PIECE, around, outer, True)
+    return None
+
+
+def _without_circles(diagram: Diagram, circles: list[tuple[Side, ...]]) -> Diagram:
+    """The diagram with the crossingless circles of these face cycles gone (the faces beside each
+    merge, keeping the outer one's name)."""
+    from movies.diagram.moves.morse import death
+
+    for cycle in circles:
+        diagram = death(diagram, diagram.component_of(cycle[0].edge))
+    return diagram
 
 
 def frame_layouts(frames) -> list[Layout]:

@@ -543,16 +543,33 @@ def _segments_cross(p, q, a, b) -> bool:
 
 
 def _at_fraction(points: list[tuple[float, float]], fraction: float):
-    """The point a fraction of the way along a polyline, and the unit tangent there."""
+    """The point a fraction of the way along a polyline, and the unit tangent there (the chord
+    over a hundredth of the length either side: a segment of almost no length, where two
+    samples all but meet, would give any direction).
+
+    >>> point, (tx, ty) = _at_fraction([(0.0, 0.0), (1.0, 0.0), (1.0, 1e-17), (2.0, 0.0)], 0.5)
+    >>> point, round(tx, 9), round(ty, 9)
+    ((1.0, 0.0), 1.0, 0.0)
+    """
+    def point(goal: float) -> tuple[float, float]:
+        for i, length in enumerate(lengths):
+            if goal <= length and length > 0:
+                f = goal / length
+                p, q = points[i], points[i + 1]
+                return p[0] + f * (q[0] - p[0]), p[1] + f * (q[1] - p[1])
+            goal -= length
+        return points[-1]
+
     lengths = [math.hypot(points[i + 1][0] - points[i][0], points[i + 1][1] - points[i][1]) for i in range(len(points) - 1)]
-    goal = sum(lengths) * fraction
-    for i, length in enumerate(lengths):
-        if goal <= length and length > 0:
-            f = goal / length
-            p, q = points[i], points[i + 1]
-            return (p[0] + f * (q[0] - p[0]), p[1] + f * (q[1] - p[1])), ((q[0] - p[0]) / length, (q[1] - p[1]) / length)
-        goal -= length
-    return points[-1], (1.0, 0.0)
+    total = sum(lengths)
+    if total <= 0:
+        return points[-1], (1.0, 0.0)
+    here = point(total * fraction)
+    before, after = point(max(0.0, total * (fraction - 0.01))), point(min(total, total * (fraction + 0.01)))
+    chord = math.hypot(after[0] - before[0], after[1] - before[1])
+    if chord <= 0:
+        return here, (1.0, 0.0)
+    return here, ((after[0] - before[0]) / chord, (after[1] - before[1]) / chord)
 
 
 class _Room:
