@@ -95,13 +95,19 @@ def find_surface(knot: str, budget: float = 60.0, most_genus: int | None = None,
         The smallest genus found at the first level that reaches the unknot, with its movie and
         the checker's verdict; or why it stopped (Ctrl-C ends the search and is reported here).
     """
+    kept: dict = {}  # the least genus built so far, for Ctrl-C
     try:
-        return _find_surface(knot, budget, most_genus, beam, search_budget, to, progress)
+        return _find_surface(knot, budget, most_genus, beam, search_budget, to, progress, kept)
     except KeyboardInterrupt:
-        return SearchResult(knot, why="stopped by Ctrl-C before a surface was found")
+        report = SearchResult(knot, why="stopped by Ctrl-C before a surface was found")
+        if "best" in kept:
+            _fall_back(report, knot, kept["start"], kept["best"], search_budget, lambda: report)
+            if report.verdict == "verified":
+                report.why = "stopped by Ctrl-C; " + report.why
+        return report
 
 
-def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -> SearchResult:
+def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress, kept: dict) -> SearchResult:
     started = time.perf_counter()
     report = SearchResult(knot)
     start = parse_diagram(knot)
@@ -136,7 +142,7 @@ def _find_surface(knot, budget, most_genus, beam, search_budget, to, progress) -
     fallback = None
     if to is None:  # surfaces by construction first: crossing changes, then Seifert's algorithm
         fallback = _constructed(report, knot, start, least, started + budget * CONSTRUCTED_SHARE, search_budget,
-                                progress)
+                                progress, kept)
         if report.verdict == "verified":
             return done()
     slice_tries = 0
@@ -185,7 +191,7 @@ SCREEN_BUDGET = 0.1
 
 
 def _constructed(report: SearchResult, knot: str, start: Diagram, least: int, until: float, search_budget: float,
-                 progress) -> tuple[int, tuple[int, ...], Diagram] | None:
+                 progress, kept: dict) -> tuple[int, tuple[int, ...], Diagram] | None:
     """Surfaces by construction: k crossing changes (k = 0, 1, ... up to the lower bound), then the
     Seifert surface of the knot they leave, simplified (genus k + its Seifert genus), or, with k at
     the bound, a ribbon disk for it. Writes the first surface that meets the bound into ``report``;
@@ -195,8 +201,9 @@ def _constructed(report: SearchResult, knot: str, start: Diagram, least: int, un
     Each set of changes is screened on the switched diagram first (cheap): the Alexander
     polynomial must allow the Seifert genus still needed (its span is at most twice the genus),
     then the Reidemeister search simplifies it for a short time. Only a set that passes is
-    written as moves and checked as a movie."""
+    written as moves and checked as a movie. ``kept`` holds the least genus built so far (for Ctrl-C)."""
     best = (seifert_genus(start), (), start)
+    kept.update(start=start, best=best)
     if best[0] == least and _seifert_end(report, knot, (), least, start, None, search_budget):
         return None
     said = time.perf_counter()
@@ -220,6 +227,7 @@ def _constructed(report: SearchResult, knot: str, start: Diagram, least: int, un
             genus = count + seifert_genus(simplified)
             if genus < best[0]:
                 best = (genus, crossings, simplified)
+                kept["best"] = best
             if genus == least and _changed_end(report, knot, start, crossings, simplified, search_budget):
                 return None
             if (left == 0 and slice_tries < MOST_SLICE_ENDS and _looks_slice(simplified)):
