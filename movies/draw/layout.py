@@ -844,10 +844,56 @@ def layout(diagram: Diagram, previous: Layout | None = None) -> Layout:
     if braided is not None and previous is None:
         return braided
     drawn = _laid_out(diagram, previous)
+    if previous is None and diagram.piece_count() == 1 and diagram.crossings and _quality(diagram, drawn) < 1:
+        drawn = _other_outsides(diagram, drawn)
     if braided is None:
         return drawn
     # a frame after a closed braid: as a closed braid again, unless that moves it more
     return min((braided, drawn), key=lambda lay: _moved(aligned(lay, previous), previous))
+
+
+#: how many other faces (the longest first) a crowded or shallow picture tries as its outside
+OTHER_OUTSIDES = 5
+
+
+def _other_outsides(diagram: Diagram, drawn: Layout) -> Layout:
+    """The best of the picture and those with another face outside, by :func:`_quality`:
+    Tutte's embedding crowds a part of the diagram cut off from the outside by a short cycle,
+    and another outside can give it room."""
+    faces = sorted((f for f in diagram.faces if f != drawn.outer), key=lambda f: (-_walk_length(diagram, diagram.faces[f]), f))
+    best, score = drawn, _quality(diagram, drawn)
+    for face in faces[:OTHER_OUTSIDES]:
+        trial = _laid_out(diagram, None, face)
+        value = _quality(diagram, trial)
+        if value > score:
+            best, score = trial, value
+        if score >= 1:
+            break
+    return best
+
+
+def _quality(diagram: Diagram, lay: Layout) -> float:
+    """How readable a picture is, 1 or more when readable: the smallest crossing angle over 30°,
+    the closest two crossings come over 3% of the width, or the shortest first piece of an edge
+    at a crossing (where the under-strand's gap is cut) over 1% of it, whichever is least.
+
+    >>> from movies.language.spec import parse_diagram
+    >>> d = parse_diagram("4_1")
+    >>> _quality(d, layout(d)) >= 1
+    True
+    """
+    smallest, arm = 90.0, math.inf
+    for name in diagram.crossings:
+        darts = [dart_point(diagram, lay.edges, name, position) for position in range(4)]
+        arm = min([arm] + [math.dist(lay.crossings[name], q) for q in darts])
+        over = math.atan2(darts[1][1] - darts[3][1], darts[1][0] - darts[3][0])
+        under = math.atan2(darts[2][1] - darts[0][1], darts[2][0] - darts[0][0])
+        turn = abs(math.degrees(over - under)) % 180
+        smallest = min(smallest, turn, 180 - turn)
+    points = list(lay.crossings.values())
+    closest = min((math.dist(p, q) for i, p in enumerate(points) for q in points[i + 1:]), default=1.0)
+    width = lay.bounds[2] - lay.bounds[0]
+    return min(smallest / 30.0, closest / (0.03 * width), arm / (0.01 * width))
 
 
 def _moved(lay: Layout, previous: Layout) -> float:
@@ -856,8 +902,8 @@ def _moved(lay: Layout, previous: Layout) -> float:
     return sum(math.dist(lay.crossings[c], previous.crossings[c]) for c in shared) / len(shared) if shared else 0.0
 
 
-def _laid_out(diagram: Diagram, previous: Layout | None) -> Layout:
-    """The layout by Tutte's method (see :func:`layout`)."""
+def _laid_out(diagram: Diagram, previous: Layout | None, root: int | None = None) -> Layout:
+    """The layout by Tutte's method (see :func:`layout`), with ``root`` outside if given."""
     result = Layout()
     if not diagram.faces or not any(diagram.faces.values()):
         # the empty diagram: one face, the whole sphere, and a short strip to name it in
@@ -865,7 +911,8 @@ def _laid_out(diagram: Diagram, previous: Layout | None) -> Layout:
         result.bounds = (-1.15, -0.3, 1.15, 0.3)
         return result
     follow = previous is not None and previous.bounds == ONE_PIECE
-    root = outer_face(diagram, previous.outside if follow else frozenset())
+    if root is None:
+        root = outer_face(diagram, previous.outside if follow else frozenset())
     result.outer = root
     result.outside = frozenset(side.edge for cycle in diagram.faces[root] for side in cycle)
     cycle_piece = _cycle_piece(diagram)

@@ -283,7 +283,7 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
             out.append(f'<circle class="hl-crossing" data-crossing="{crossing}" cx="{_num(x)}" cy="{_num(y)}" '
                        f'r="{_num(stroke * 5)}" fill="none" stroke="{HIGHLIGHT_CROSSING}" stroke-width="{_num(stroke)}"/>')
     for index, gate in enumerate(gates, start=1):
-        out.extend(_gate(diagram, gate, index, drawn, canvas, stroke))
+        out.extend(_gate(diagram, gate, index, drawn, canvas, stroke, colour_of=colour_of))
     if highlight.twist is not None:
         gate, turns = highlight.twist
         out.extend(_gate(diagram, gate, f"{turns:+d}", drawn, canvas, stroke, kind="twist"))
@@ -294,10 +294,11 @@ def render(diagram: Diagram, lay: Layout, drawn: Strands, labels: bool, highligh
 
 
 def _gate(diagram: Diagram, gate, index, drawn: Strands, canvas: _Canvas, stroke: float,
-          kind: str = "gate") -> list[str]:
-    """A handle's gate: a dashed path across each edge it crosses, with its name (``h1``, ...);
-    or, with ``kind="twist"``, a twist step's box: a wide band across the strands it twists,
-    labelled with its full twists (``+1``).
+          kind: str = "gate", colour_of: dict | None = None) -> list[str]:
+    """A handle's gate: a small circle round the strands that pass through the handle (over
+    them on one side, under them on the other, so that they pass through it), with its name
+    (``h1``, ...); or, with ``kind="twist"``, a twist step's box: a wide band across the strands
+    it twists, labelled with its full twists (``+1``).
 
     Where it crosses an edge is chosen near where it crossed the edge before (near the first
     edge's neighbour for the first), so that a gate through the corner of a crossing stays in
@@ -376,11 +377,73 @@ def _gate(diagram: Diagram, gate, index, drawn: Strands, canvas: _Canvas, stroke
                 f'stroke-linecap="butt" stroke-linejoin="round"/>',
                 f'<text class="twist-name" x="{_num(x)}" y="{_num(y)}" font-size="{_num(stroke * 9)}" '
                 f'fill="#222222" text-anchor="middle">{index}</text>']
-    return [f'<path class="gate" data-handle="{index}" data-edges="{edges}" d="{d}" '
-            f'fill="none" stroke="#222222" stroke-width="{_num(stroke * 1.2)}" stroke-dasharray="{_num(stroke * 3)} '
-            f'{_num(stroke * 2)}" stroke-linecap="round"/>',
-            f'<text class="gate-name" x="{_num(x)}" y="{_num(y)}" font-size="{_num(stroke * 9)}" '
-            f'fill="#222222" text-anchor="middle">h{index}</text>']
+    ring = _ellipse(chosen, points, reach)
+    lines_all = {e: [canvas(p) for p in sample(curve)] for e, curve in drawn.curves.items()}
+    if ring is None or not _through(ring, lines_all, gate.edges):
+        # no small circle fits round the bundle: the gate's path, dashed, as a fallback
+        return [f'<path class="gate" data-handle="{index}" data-edges="{edges}" d="{d}" '
+                f'fill="none" stroke="#222222" stroke-width="{_num(stroke * 1.2)}" stroke-dasharray="{_num(stroke * 3)} '
+                f'{_num(stroke * 2)}" stroke-linecap="round"/>',
+                f'<text class="gate-name" x="{_num(x)}" y="{_num(y)}" font-size="{_num(stroke * 9)}" '
+                f'fill="#222222" text-anchor="middle">h{index}</text>']
+    d = "M" + " L".join(f"{_num(px)} {_num(py)}" for px, py in ring) + " Z"
+    out = [f'<path class="gate" data-handle="{index}" data-edges="{edges}" d="{d}" '
+           f'fill="none" stroke="#222222" stroke-width="{_num(stroke * 1.2)}"/>']
+    # on the far half the strands pass over the circle: each drawn again on top, on a white edge
+    far = ring[len(ring) // 2:]
+    for edge in dict.fromkeys(gate.edges):
+        line = lines[edge]
+        for i, (a, b) in enumerate(zip(line, line[1:])):
+            if any(_segments_cross(a, b, p, q) for p, q in zip(far, far[1:])):
+                piece = line[max(0, i - 1):i + 3]
+                path = "M" + " L".join(f"{_num(px)} {_num(py)}" for px, py in piece)
+                colour = (colour_of or {}).get(diagram.component_of(edge), "#222222")
+                out += [f'<path class="gate-under" d="{path}" fill="none" stroke="#ffffff" '
+                        f'stroke-width="{_num(stroke * 3.4)}" stroke-linecap="butt"/>',
+                        f'<path class="gate-under" d="{path}" fill="none" stroke="{colour}" '
+                        f'stroke-width="{_num(stroke)}" stroke-linecap="round"/>']
+    lx, ly = ring[0]
+    out.append(f'<text class="gate-name" x="{_num(lx)}" y="{_num(ly - stroke * 3)}" font-size="{_num(stroke * 9)}" '
+               f'fill="#222222" text-anchor="middle">h{index}</text>')
+    return out
+
+
+def _ellipse(chosen: list[tuple[float, float]], path: list[tuple[float, float]], reach: float):
+    """A thin ellipse round the points where a gate crosses its strands, long along the gate
+    (from its first crossing point to its last; across the strand for one), 48 points closed,
+    starting at the end of its long axis beyond the first point; None for no direction.
+
+    >>> ring = _ellipse([(0.0, 0.0), (10.0, 0.0)], [(-3.0, 0.0), (0.0, 0.0), (10.0, 0.0), (13.0, 0.0)], 4.0)
+    >>> len(ring), tuple(round(v, 6) + 0.0 for v in ring[0]), tuple(round(v, 6) + 0.0 for v in ring[12])
+    (49, (-3.0, 0.0), (5.0, 2.0))
+    """
+    first, last = chosen[0], chosen[-1]
+    ux, uy = last[0] - first[0], last[1] - first[1]
+    if math.hypot(ux, uy) < 1e-9:
+        ux, uy = path[-1][0] - path[0][0], path[-1][1] - path[0][1]
+    size = math.hypot(ux, uy)
+    if size < 1e-9:
+        return None
+    ux, uy = ux / size, uy / size
+    spread = max(((p[0] - first[0]) * ux + (p[1] - first[1]) * uy) for p in chosen)
+    centre = (first[0] + ux * spread / 2, first[1] + uy * spread / 2)
+    a, b = spread / 2 + 0.75 * reach, reach / 2
+    ring = []
+    for k in range(49):
+        t = math.pi + 2 * math.pi * k / 48
+        ring.append((centre[0] + a * math.cos(t) * ux + b * math.sin(t) * uy,
+                     centre[1] + a * math.cos(t) * uy - b * math.sin(t) * ux))
+    return ring
+
+
+def _through(ring, lines: dict, edges) -> bool:
+    """Whether each edge a gate crosses meets the ring twice for each crossing, and no other edge meets it."""
+    wanted = {edge: 2 * list(edges).count(edge) for edge in edges}
+    for edge, line in lines.items():
+        met = sum(_segments_cross(a, b, p, q) for a, b in zip(line, line[1:]) for p, q in zip(ring, ring[1:]))
+        if met != wanted.get(edge, 0):
+            return False
+    return True
 
 
 def _band(diagram: Diagram, band: tuple, drawn: Strands, canvas: _Canvas, stroke: float,
@@ -543,33 +606,29 @@ def _segments_cross(p, q, a, b) -> bool:
 
 
 def _at_fraction(points: list[tuple[float, float]], fraction: float):
-    """The point a fraction of the way along a polyline, and the unit tangent there (the chord
-    over a hundredth of the length either side: a segment of almost no length, where two
-    samples all but meet, would give any direction).
+    """The point a fraction of the way along a polyline, and the unit tangent there: the
+    direction of the piece it lies on, passing over pieces of almost no length (where two
+    samples all but meet, their difference points any way).
 
     >>> point, (tx, ty) = _at_fraction([(0.0, 0.0), (1.0, 0.0), (1.0, 1e-17), (2.0, 0.0)], 0.5)
     >>> point, round(tx, 9), round(ty, 9)
     ((1.0, 0.0), 1.0, 0.0)
     """
-    def point(goal: float) -> tuple[float, float]:
-        for i, length in enumerate(lengths):
-            if goal <= length and length > 0:
-                f = goal / length
-                p, q = points[i], points[i + 1]
-                return p[0] + f * (q[0] - p[0]), p[1] + f * (q[1] - p[1])
-            goal -= length
-        return points[-1]
-
     lengths = [math.hypot(points[i + 1][0] - points[i][0], points[i + 1][1] - points[i][1]) for i in range(len(points) - 1)]
     total = sum(lengths)
-    if total <= 0:
-        return points[-1], (1.0, 0.0)
-    here = point(total * fraction)
-    before, after = point(max(0.0, total * (fraction - 0.01))), point(min(total, total * (fraction + 0.01)))
-    chord = math.hypot(after[0] - before[0], after[1] - before[1])
-    if chord <= 0:
-        return here, (1.0, 0.0)
-    return here, ((after[0] - before[0]) / chord, (after[1] - before[1]) / chord)
+    tiny = 1e-9 * total
+    goal = total * fraction
+    for i, length in enumerate(lengths):
+        if goal <= length and length > 0:
+            f = goal / length
+            p, q = points[i], points[i + 1]
+            here = (p[0] + f * (q[0] - p[0]), p[1] + f * (q[1] - p[1]))
+            j = next((k for k in range(i, len(lengths)) if lengths[k] > tiny),
+                     next((k for k in range(i, -1, -1) if lengths[k] > tiny), i))
+            p, q = points[j], points[j + 1]
+            return here, ((q[0] - p[0]) / lengths[j], (q[1] - p[1]) / lengths[j])
+        goal -= length
+    return points[-1], (1.0, 0.0)
 
 
 class _Room:

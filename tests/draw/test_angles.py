@@ -25,5 +25,6 @@ def test_every_crossing_opens_at_least_thirty_degrees(name):
 def test_without_the_opening_some_crossing_is_shallow(monkeypatch):
     # the measurement can fail: the plain spring layout leaves this one at about 13 degrees
     monkeypatch.setattr(layout_module, "OPENING", 0.0)
+    monkeypatch.setattr(layout_module, "OTHER_OUTSIDES", 0)
     d = parse_diagram("12n_642")
     assert min(crossing_angles(d, diagram_svg(d)).values()) < 30
