@@ -233,7 +233,8 @@ def _constructed(report: SearchResult, knot: str, start: Diagram, least: int, un
             if (left == 0 and slice_tries < MOST_SLICE_ENDS and _looks_slice(simplified)):
                 slice_tries += 1
                 chain, after = _change_chain(start, crossings, search_budget)
-                if chain is not None and _slice_end(report, knot, chain, least, after, search_budget):
+                if chain is not None and _slice_end(report, knot, chain, least, after, search_budget,
+                                                    f"{_changes_said(chain)}, then a ribbon disk"):
                     return None
     return best
 
@@ -338,7 +339,7 @@ def _looks_slice(knot: Diagram) -> bool:
 
 
 def _slice_end(report: SearchResult, knot: str, chain: tuple[MoveRecord, ...], genus: int, after: Diagram,
-               budget: float) -> bool:
+               budget: float, how: str = "found by the band search") -> bool:
     """Finish at a slice knot instead of the unknot: the genus-one pieces, then a ribbon disk for
     the knot they leave (found by the ribbon search), written as one movie and checked."""
     if not _looks_slice(after):
@@ -351,7 +352,7 @@ def _slice_end(report: SearchResult, knot: str, chain: tuple[MoveRecord, ...], g
         return False
     steps = [line for line in disk.movie.splitlines()
              if line.strip() and not line.startswith(("title", "start", "surface", "%"))]
-    lines = [f"title a surface of genus {genus} for {knot}, found by the band search", f"start {knot}"]
+    lines = [f"title a surface of genus {genus} for {knot}, {how}", f"start {knot}"]
     lines += [str(r) for r in chain] + [f"isotopic to {spec}"] + steps + [f"surface connected, genus {genus}"]
     text = "\n".join(lines) + "\n"
     checked = check_movie(text, budget=budget)

@@ -60,7 +60,7 @@ def from_batch(args) -> int:
                                   "'find-surface' ORDER BY position").fetchall()
     names = table_names("knot", max_crossings=args.most_crossings)[1:]
     by_name = {item: (status, json.loads(result) if result else None, ms) for item, status, result, ms in rows}
-    certified, disagreements, times, open_ = 0, [], [], []
+    certified, disagreements, times, open_, methods = 0, [], [], [], {}
     for name in names:
         status, result, ms = by_name[name]
         times.append(ms / 1000)
@@ -72,13 +72,18 @@ def from_batch(args) -> int:
             disagreements.append(f"{name}: bound {bound}, surface {genus}, table {table}")
         if result and result.get("four_genus_certified") is not None:
             certified += 1
+            title = (result.get("movie") or "").splitlines()[0]
+            how = ("crossing changes, then Seifert's algorithm or a ribbon disk"
+                   if "Seifert's algorithm" in title or "crossing change" in title
+                   else "the ribbon search" if title.startswith("title a ribbon disk") else "the band search")
+            methods[how] = methods.get(how, 0) + 1
         else:
             open_.append(f"{name} ({status}; bound {bound}, surface {genus}, table {table})")
-    write(args, names, certified, disagreements, times, open_, "movies batch, task find-surface")
+    write(args, names, certified, disagreements, times, open_, "movies batch, task find-surface", methods)
     return 0
 
 
-def write(args, names, certified, disagreements, times, open_, how: str) -> None:
+def write(args, names, certified, disagreements, times, open_, how: str, methods: dict | None = None) -> None:
     ordered = sorted(times)
     lines = ["# 4-genus certified by a verified movie and an invariant bound", "",
              f"{date.today()}, {os.cpu_count()} cores, Python {platform.python_version()}. Every nontrivial knot "
@@ -87,6 +92,8 @@ def write(args, names, certified, disagreements, times, open_, how: str) -> None
              "90th percentile (s) |", "|---|---|---|---|---|---|",
              f"| {len(names)} | {certified} | {certified / len(names):.1%} | {len(disagreements)} | "
              f"{statistics.median(times):.2f} | {ordered[min(len(ordered) - 1, int(0.9 * len(ordered)))]:.2f} |", ""]
+    if methods:
+        lines += ["Certified by: " + "; ".join(f"{how} {count}" for how, count in sorted(methods.items())), ""]
     lines += ["Disagreements:", ""] + [f"- {d}" for d in disagreements] if disagreements else ["Disagreements: none."]
     lines += ["", f"Not certified ({len(open_)}):", ""] + [f"- {x}" for x in open_]
     RESULTS.write_text("\n".join(lines) + "\n", encoding="utf-8")
