@@ -112,11 +112,13 @@ def build_parser() -> argparse.ArgumentParser:
         "find",
         help="find a surface: a ribbon disk for a knot, written as a movie and checked",
         description=("Search for a surface and write it as a movie that movies check verifies. 'ribbon': bands "
-                     "that cut the knot into an unlink (one band across a face or along a path over or under one or two "
-                     "or two edges, or two bands across faces), then deaths. 'surface': pairs of bands (a split and a join, "
-                     "a genus-one piece) down to the unknot, then a death, the genus as small as it finds. Prints "
+                     "that cut the knot into an unlink (one band across a face or along a path over or under one or "
+                     "two edges, or two bands across faces), then deaths. 'surface': first built (crossing changes, "
+                     "each a genus-one piece, then Seifert's algorithm on the knot left), then pairs of bands (a split "
+                     "and a join) down to the unknot, then a death; the genus as small as it finds. Prints "
                      "the movie, the checker's verdict and the lower bounds for the 4-genus the invariants give, "
-                     "and '4-genus certified' when they meet."),
+                     "and '4-genus certified' when they meet. The candidates come in a fixed order; the budget is "
+                     "time, so a slower machine may stop sooner."),
     )
     fnd.add_argument("what", choices=["ribbon", "surface"],
                      help="ribbon: a ribbon disk; surface: a connected surface of least genus it can find")
