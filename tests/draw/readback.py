@@ -77,6 +77,18 @@ def read_svg(text: str) -> dict:
     return {"strands": strands, "arrows": arrows, "faces": faces, "colours": colours, "stroke": stroke}
 
 
+def _to_segment(c, p, q) -> float:
+    """The distance from the point c to the segment pq.
+
+    >>> _to_segment((0, 1), (-1, 0), (1, 0)), _to_segment((3, 0), (-1, 0), (1, 0))
+    (1.0, 2.0)
+    """
+    dx, dy = q[0] - p[0], q[1] - p[1]
+    length2 = dx * dx + dy * dy
+    t = 0.0 if length2 == 0 else max(0.0, min(1.0, ((c[0] - p[0]) * dx + (c[1] - p[1]) * dy) / length2))
+    return _distance(c, (p[0] + t * dx, p[1] + t * dy))
+
+
 def _distance(p, q) -> float:
     return math.hypot(p[0] - q[0], p[1] - q[1])
 
@@ -239,12 +251,14 @@ def check_drawing(diagram, text: str, visible: bool = True) -> dict:
         # the arrow is centred on the path: the steps of the path near its centre run its way
         centre = ((tip[0] + base[0]) / 2, (tip[1] + base[1]) / 2)
         reach = _distance(tip, base)
-        near = [i for i in steps if min(_distance(pts[i], centre), _distance(pts[i + 1], centre)) <= reach]
+        # a step is near when some point of it is (a long straight step can pass the arrow with both ends far)
+        near = [i for i in steps if _to_segment(centre, pts[i], pts[i + 1]) <= reach]
         dots = [(pts[i + 1][0] - pts[i][0]) * (tip[0] - base[0]) + (pts[i + 1][1] - pts[i][1]) * (tip[1] - base[1])
                 for i in near]
         if any(d < 0 for d in dots) and any(d > 0 for d in dots):
             continue  # the path turns back within the arrow's length (a hairpin): no direction to read
-        assert dots and all(d > 0 for d in dots), f"the arrow on edge {edge} points backwards"
+        assert dots, f"the arrow on edge {edge} is not on its path"
+        assert all(d > 0 for d in dots), f"the arrow on edge {edge} points backwards"
 
     # faces: each boundary cycle has the face on its left
     piece_of = {edge: i for i, piece in enumerate(diagram.pieces()) for edge in piece}
