@@ -155,12 +155,15 @@ def crossing_change_moves(diagram: Diagram, crossing: int) -> tuple[tuple[MoveRe
 
 
 def _twisted_bands(diagram: Diagram):
-    for face in sorted(diagram.faces):
-        edges = sorted({side.edge for cycle in diagram.faces[face] for side in cycle})
-        for i, first in enumerate(edges):
-            for second in edges[i + 1:]:
-                for twists in (1, -1):
-                    yield MoveRecord("band", first=first, second=second, face=face, twists=twists)
+    """Bands across one face between two different edges, with one half twist either way."""
+    from dataclasses import replace
+
+    from movies.checker.ribbon import band_candidates
+
+    for record in band_candidates(diagram):
+        if record.first != record.second:
+            for twists in (1, -1):
+                yield replace(record, twists=twists)
 
 
 def seifert_moves(diagram: Diagram) -> tuple[tuple[MoveRecord, ...], Diagram]:

@@ -269,6 +269,7 @@ def _changed_end(report: SearchResult, knot: str, start: Diagram, crossings: tup
 
 
 def _spec(diagram: Diagram) -> str:
+    """The diagram in the notation's ``pd[...]`` form (its crossings as named)."""
     return "pd[" + ",".join("[" + ",".join(map(str, labels)) + "]" for labels in diagram.crossings.values()) + "]"
 
 
@@ -346,7 +347,7 @@ def _slice_end(report: SearchResult, knot: str, chain: tuple[MoveRecord, ...], g
         return False
     from movies.checker.ribbon import find_ribbon_disk
 
-    spec = "pd[" + ",".join("[" + ",".join(map(str, labels)) + "]" for labels in after.crossings.values()) + "]"
+    spec = _spec(after)
     disk = find_ribbon_disk(spec, budget=SLICE_END_BUDGET, search_budget=min(budget, 1.0))
     if disk.verdict != "verified" or not disk.movie:
         return False

@@ -26,6 +26,7 @@ import math
 from dataclasses import dataclass
 
 from movies.diagram.model import Diagram
+from movies.draw.geometry import round_the_circle
 
 __all__ = ["BraidPlan", "braid_plan", "braid_drawings"]
 
@@ -213,22 +214,10 @@ def _column_angles(plan: BraidPlan, columns: int, turning: int, before: dict[int
         if name in before:
             x, y = before[name]
             seen.setdefault(k, []).append(math.atan2(turning * y, x))
-    known = sorted(seen)
-    if len(known) < 2:
+    mean = {k: math.atan2(sum(math.sin(a) for a in angles), sum(math.cos(a) for a in angles)) for k, angles in seen.items()}
+    angles = round_the_circle(columns, mean)
+    if angles is None:
         return even
-    mean = {k: math.atan2(sum(math.sin(a) for a in seen[k]), sum(math.cos(a) for a in seen[k])) for k in known}
-    value = {known[0]: mean[known[0]]}
-    for a, b in zip(known, known[1:]):
-        value[b] = value[a] + (mean[b] - value[a]) % (2 * math.pi)
-    if value[known[-1]] - value[known[0]] >= 2 * math.pi:
-        return even  # pragma: no cover - the modulo keeps the angles within a turn
-    value[known[0] + columns] = value[known[0]] + 2 * math.pi
-    stops = known + [known[0] + columns]
-    angles = [0.0] * columns
-    for a, b in zip(stops, stops[1:]):
-        for j in range(a, b):
-            angles[j % columns] = value[a] + (value[b] - value[a]) * (j - a) / (b - a) - (2 * math.pi if j >= columns else 0)
-    angles = [a - 2 * math.pi * math.floor((a - angles[0]) / (2 * math.pi)) if k else a for k, a in enumerate(angles)]
     gaps = [(angles[(k + 1) % columns] - angles[k]) % (2 * math.pi) for k in range(columns)]
     if min(gaps) < 0.5 * (2 * math.pi / columns) or abs(sum(gaps) - 2 * math.pi) > 1e-9:
         return even

@@ -171,3 +171,33 @@ def _candidate_pairs(lo: np.ndarray, hi: np.ndarray) -> tuple[np.ndarray, np.nda
     meets = (lo[i, 0] <= hi[j, 0]) & (lo[j, 0] <= hi[i, 0]) & (lo[i, 1] <= hi[j, 1]) & (lo[j, 1] <= hi[i, 1])
     return i[meets], j[meets]
 
+
+def round_the_circle(count: int, known: dict[int, float]) -> list[float] | None:
+    """Angles for ``count`` places in counterclockwise order round a circle, place 0 first and
+    increasing within one turn: the ``known`` angles (each taken as the first angle after the one
+    before it), the other places evenly between their known neighbours. None with fewer than two
+    known.
+
+    >>> [round(a, 3) for a in round_the_circle(4, {1: 0.0, 3: math.pi})]
+    [-1.571, 0.0, 1.571, 3.142]
+    >>> round_the_circle(3, {0: 0.0, 1: 2.0, 2: 1.0}) is None  # 0, then 2, then 1 only after a whole turn
+    True
+    """
+    marked = sorted(known)
+    if len(marked) < 2:
+        return None
+    turn = 2 * math.pi
+    value = {marked[0]: known[marked[0]]}
+    for before, after in zip(marked, marked[1:]):
+        value[after] = value[before] + (known[after] - value[before]) % turn
+    if value[marked[-1]] - value[marked[0]] >= turn:
+        return None
+    value[marked[0] + count] = value[marked[0]] + turn
+    stops = marked + [marked[0] + count]
+    angles = [0.0] * count
+    for a, b in zip(stops, stops[1:]):
+        for j in range(a, b):
+            # places before the first known one come round at the end of the turn: one turn back
+            angles[j % count] = value[a] + (value[b] - value[a]) * (j - a) / (b - a) - (turn if j >= count else 0.0)
+    return angles
+

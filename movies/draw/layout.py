@@ -29,7 +29,7 @@ from dataclasses import dataclass, field, replace
 import numpy as np
 
 from movies.diagram.model import Diagram, Side
-from movies.draw.geometry import counterclockwise, crossings_between, expand_ranges
+from movies.draw.geometry import counterclockwise, crossings_between, expand_ranges, round_the_circle
 
 #: subdivision points on each edge (at least 2, so that the subdivided graph is simple)
 SUBDIVISION = 3
@@ -230,29 +230,19 @@ def _outer_angles(walk: list[tuple], anchors: dict[tuple, Point]) -> list[float]
 
     >>> [round(a, 3) for a in _outer_angles([("c", 1), ("c", 2)], {})]
     [1.571, -1.571, -4.712]
-    >>> [round(a, 3) for a in _outer_angles([("c", 1), ("c", 2), ("c", 3)], {("c", 1): (1, 0), ("c", 2): (0, -1)})]
+    >>> [round(a, 3) + 0.0 for a in _outer_angles([("c", 1), ("c", 2), ("c", 3)], {("c", 1): (1, 0), ("c", 2): (0, -1)})]
     [0.0, -1.676, -3.979, -6.283]
     """
     n = len(walk)
     even = [math.pi / 2 - 2 * math.pi * i / n for i in range(n + 1)]
-    marked = [i for i, key in enumerate(walk) if key in anchors]
-    if len(marked) < 2:
+    # clockwise: the angles turned the other way are the counterclockwise ones
+    known = {i: -math.atan2(anchors[key][1], anchors[key][0]) for i, key in enumerate(walk) if key in anchors}
+    placed = round_the_circle(n, known)
+    if placed is None:
         return even
-    turn = 2 * math.pi
-    raw = {i: math.atan2(anchors[walk[i]][1], anchors[walk[i]][0]) for i in marked}
-    value = {marked[0]: raw[marked[0]]}
-    for before, after in zip(marked, marked[1:]):  # clockwise: each angle at most the one before
-        value[after] = value[before] - (value[before] - raw[after]) % turn
-    if value[marked[0]] - value[marked[-1]] >= turn:
-        return even  # pragma: no cover - the modulo keeps a walk of anchors within one turn
-    value[marked[0] + n] = value[marked[0]] - turn
-    angles = [0.0] * n
-    stops = marked + [marked[0] + n]
-    for a, b in zip(stops, stops[1:]):
-        for j in range(a, b):
-            # indices before the first anchor come round at the end of the turn: one turn up
-            angles[j % n] = value[a] + (value[b] - value[a]) * (j - a) / (b - a) + (turn if j >= n else 0.0)
+    angles = [-a for a in placed]
     # a blend with even spacing keeps every gap open
+    turn = 2 * math.pi
     blended = [ANCHORED_SPACING * angles[i] + (1 - ANCHORED_SPACING) * (angles[0] - turn * i / n) for i in range(n)]
     return blended + [blended[0] - turn]
 
