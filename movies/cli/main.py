@@ -609,11 +609,12 @@ def _run_frames(args: argparse.Namespace) -> int:
     gates = handles.gates if handles is not None else ()
     if args.svg or args.png:
         from movies.draw import diagram_svg
-        from movies.draw.layout import frame_layouts
+        from movies.draw.frames import frame_layouts
+        from movies.report.html import frame_steps
 
         # laid out from the frames before it, as the report draws it
         svg = diagram_svg(frame, labels=True, title=heading, gates=gates,
-                          lay=frame_layouts(result.frames[:at + 1])[-1])
+                          lay=frame_layouts(result.frames[:at + 1], frame_steps(result))[-1])
         if args.svg:
             _write(args.svg, svg)
         if args.png:

@@ -81,14 +81,18 @@ def _round(points: list[Point], smooth: float, closed: bool = False) -> list[tup
             continue
         p, before, after = points[k], points[k - 1], points[(k + 1) % n]
         a, b = towards(p, before, smooth), towards(p, after, smooth)
-        if a != cursor:
+        if math.dist(a, cursor) <= 1e-12 * (1.0 + math.dist(p, before)):
+            a = cursor  # the same midpoint reached from both ends: no piece a rounding error long
+        else:
             pieces.append(("L", cursor, a))
         pieces.append(("Q", a, p, b))
         cursor = b
     if closed:
         p, before, after = points[0], points[-1], points[1]
         a = towards(p, before, smooth)
-        if a != cursor:
+        if math.dist(a, cursor) <= 1e-12 * (1.0 + math.dist(p, before)):
+            a = cursor
+        else:
             pieces.append(("L", cursor, a))
         pieces.append(("Q", a, p, start))
     else:

@@ -65,11 +65,13 @@ def sample(curve: list[tuple], steps: int = 6) -> list[Point]:
             points.append((float(piece[2][0]), float(piece[2][1])))
         else:
             _, p0, c, p1 = piece
-            for k in range(1, steps + 1):
+            for k in range(1, steps):
                 t = k / steps
                 u = 1 - t
                 points.append((u * u * p0[0] + 2 * u * t * c[0] + t * t * p1[0],
                                u * u * p0[1] + 2 * u * t * c[1] + t * t * p1[1]))
+            # the end exactly, not a rounding error away from where the next piece starts
+            points.append((float(p1[0]), float(p1[1])))
     return points
 
 
@@ -201,3 +203,40 @@ def round_the_circle(count: int, known: dict[int, float]) -> list[float] | None:
             angles[j % count] = value[a] + (value[b] - value[a]) * (j - a) / (b - a) - (turn if j >= count else 0.0)
     return angles
 
+
+
+def segments_cross(p: Point, q: Point, a: Point, b: Point) -> bool:
+    """Whether the segments pq and ab cross at a point inside both (touching does not count).
+
+    >>> segments_cross((0, 0), (2, 2), (0, 2), (2, 0)), segments_cross((0, 0), (1, 1), (1, 1), (2, 0))
+    (True, False)
+    """
+    def side(u, v, w):
+        return (v[0] - u[0]) * (w[1] - u[1]) - (v[1] - u[1]) * (w[0] - u[0])
+
+    return (side(p, q, a) * side(p, q, b) < 0) and (side(a, b, p) * side(a, b, q) < 0)
+
+
+def clear_of(starts: np.ndarray, ends: np.ndarray, lines: list[list[Point]], chunk: int = 200_000) -> np.ndarray:
+    """For each segment ``starts[i]``-``ends[i]``, whether it crosses no segment of the polylines
+    (at a point inside both, as :func:`segments_cross`: touching does not count), all at once.
+
+    >>> clear_of(np.array([[0.0, 0.0], [0.0, 0.0]]), np.array([[2.0, 2.0], [2.0, -1.0]]), [[(0, 2), (2, 0)]]).tolist()
+    [False, True]
+    """
+    a = np.asarray([p for line in lines for p in line[:-1]], dtype=float).reshape(-1, 2)
+    b = np.asarray([p for line in lines for p in line[1:]], dtype=float).reshape(-1, 2)
+    p, q = np.asarray(starts, dtype=float).reshape(-1, 2), np.asarray(ends, dtype=float).reshape(-1, 2)
+    clear = np.ones(len(p), dtype=bool)
+    if not len(a) or not len(p):
+        return clear
+
+    def side(u, v, w):
+        return (v[..., 0] - u[..., 0]) * (w[..., 1] - u[..., 1]) - (v[..., 1] - u[..., 1]) * (w[..., 0] - u[..., 0])
+
+    rows = max(1, chunk // len(a))
+    for start in range(0, len(p), rows):
+        u, v = p[start:start + rows, None, :], q[start:start + rows, None, :]
+        hit = (side(u, v, a[None]) * side(u, v, b[None]) < 0) & (side(a[None], b[None], u) * side(a[None], b[None], v) < 0)
+        clear[start:start + rows] = ~hit.any(axis=1)
+    return clear

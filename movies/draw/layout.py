@@ -747,6 +747,16 @@ def inscribed_disk(polygon: list[Point], hint: Point | None = None, rounds: int 
         if values[i] > best_value:
             best, best_value = candidates[i], values[i]
         low, span = best - span / 6, span / 3
+    if best_value <= 0:
+        # a thin face may slip between the grid's points: the midpoints of pairs of its corners do not
+        ends = pts[::max(1, len(pts) // 40)]
+        i, j = np.triu_indices(len(ends), 1)
+        middles = (ends[i] + ends[j]) / 2
+        if len(middles):
+            values = clearance(middles)
+            k = int(values.argmax())
+            if values[k] > best_value:
+                best, best_value = middles[k], values[k]
     return (float(best[0]), float(best[1])), float(max(best_value, 0.0))
 
 
@@ -1065,24 +1075,6 @@ def _without_circles(diagram: Diagram, circles: list[tuple[Side, ...]]) -> Diagr
     for cycle in circles:
         diagram = death(diagram, diagram.component_of(cycle[0].edge))
     return diagram
-
-
-def frame_layouts(frames) -> list[Layout]:
-    """The layouts of a movie's frames, each laid out from the one before (:func:`layout` with
-    ``previous``), then turned (:func:`aligned`) and settled (:func:`settled`) toward it: the
-    report and ``movies frames --svg`` draw the same pictures.
-
-    >>> from movies.diagram.constructors import from_braid
-    >>> first, second = frame_layouts([from_braid([1, 1, 1]), from_braid([1, 1, 1])])
-    >>> first.crossings == second.crossings
-    True
-    """
-    out: list[Layout] = []
-    previous = None
-    for frame in frames:
-        previous = settled(frame, aligned(layout(frame, previous), previous), previous)
-        out.append(previous)
-    return out
 
 
 def aligned(lay: Layout, previous: Layout | None) -> Layout:

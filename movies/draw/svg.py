@@ -20,8 +20,9 @@ from dataclasses import dataclass
 from html import escape
 
 from movies.diagram.model import Diagram, Side
+from movies.draw.bands import band_core
 from movies.draw.curves import Strands, strands
-from movies.draw.geometry import sample
+from movies.draw.geometry import sample, segments_cross
 from movies.draw.layout import Layout, drawn_outside, inscribed_disk, layout
 
 #: component colours: component n is drawn in PALETTE[(n - 1) % 8], so a component keeps its colour
@@ -318,7 +319,7 @@ def _gate(diagram: Diagram, gate, index, drawn: Strands, canvas: _Canvas, stroke
     others = [[canvas(p) for p in sample(curve)] for edge, curve in drawn.curves.items() if edge not in lines]
 
     def clear(p, q) -> bool:  # the straight piece between two crossing points meets no other strand
-        return not any(_segments_cross(p, q, a, b) for line in others for a, b in zip(line, line[1:]))
+        return not any(segments_cross(p, q, a, b) for line in others for a, b in zip(line, line[1:]))
 
     def nearest(candidates, targets):
         ranked = sorted(candidates, key=lambda p: min(math.hypot(p[0] - q[0], p[1] - q[1]) for q in targets))
@@ -394,7 +395,7 @@ def _gate(diagram: Diagram, gate, index, drawn: Strands, canvas: _Canvas, stroke
     for edge in dict.fromkeys(gate.edges):
         line = lines[edge]
         for i, (a, b) in enumerate(zip(line, line[1:])):
-            if any(_segments_cross(a, b, p, q) for p, q in zip(far, far[1:])):
+            if any(segments_cross(a, b, p, q) for p, q in zip(far, far[1:])):
                 piece = line[max(0, i - 1):i + 3]
                 path = "M" + " L".join(f"{_num(px)} {_num(py)}" for px, py in piece)
                 colour = (colour_of or {}).get(diagram.component_of(edge), "#222222")
@@ -440,7 +441,7 @@ def _through(ring, lines: dict, edges) -> bool:
     """Whether each edge a gate crosses meets the ring twice for each crossing, and no other edge meets it."""
     wanted = {edge: 2 * list(edges).count(edge) for edge in edges}
     for edge, line in lines.items():
-        met = sum(_segments_cross(a, b, p, q) for a, b in zip(line, line[1:]) for p, q in zip(ring, ring[1:]))
+        met = sum(segments_cross(a, b, p, q) for a, b in zip(line, line[1:]) for p, q in zip(ring, ring[1:]))
         if met != wanted.get(edge, 0):
             return False
     return True
@@ -450,79 +451,21 @@ def _band(diagram: Diagram, band: tuple, drawn: Strands, canvas: _Canvas, stroke
           root: int | None) -> tuple[list[str], list[str]]:
     """A band drawn as a strip: its two sides and its dashed core, across one face or along a path.
 
-    ``band`` is (first edge, second edge, faces, path): one face and no path for a band across a
-    face; else the faces the core runs through, in order, and ((edge, over), ...) the edges it
-    crosses between them. Each piece of the core is a segment between points of two edges (away
-    from their ends) that leaves each edge into that piece's face and crosses no strand; the
-    pieces meet on the crossed edges, and the shortest such chain is drawn. Returns (what goes under the strands, what goes over them:
-    the band where it passes over an edge); nothing at all when some piece finds no such segment.
+    ``band`` is (first edge, second edge, faces, path), as :func:`movies.draw.bands.band_core`
+    takes it; the core is found on the curves as drawn. Returns (what goes under the strands,
+    what goes over them: the band where it passes over an edge); nothing at all when some piece
+    of the core finds no way.
     """
     first, second, faces, path = band
     chain = [first] + [edge for edge, _ in path] + [second]
-    if any(edge not in drawn.curves for edge in chain) or any(f not in diagram.faces for f in faces) \
-            or len(faces) != len(chain) - 1:
+    if any(edge not in drawn.curves for edge in chain):
         return [], []
-    lines = {edge: [canvas(p) for p in sample(drawn.curves[edge])] for edge in chain}
-    everything = [[canvas(p) for p in sample(curve)] for curve in drawn.curves.values()]
-
-    def inner(edge):
-        line = lines[edge]
-        cut = len(line) // 6 if edge not in diagram.loops else 0
-        return line[cut:len(line) - cut] or line
-
-    def into_face(edge, index, target, face) -> bool:
-        line = lines[edge]
-        a, b = line[max(index - 1, 0)], line[min(index + 1, len(line) - 1)]
-        tx, ty = b[0] - a[0], b[1] - a[1]
-        cross = tx * (target[1] - line[index][1]) - ty * (target[0] - line[index][0])
-        left, right = diagram.faces_beside(edge)
-        # on the canvas (y down) a positive cross product is to the right of the direction of travel
-        return (face == right) == (cross > 0) or left == right
-
-    def clear(p, q) -> bool:  # touching a strand at an end of the segment does not count
-        return not any(_segments_cross(p, q, a, b) for line in everything for a, b in zip(line, line[1:]))
-
-    # the core's point on each edge of the chain: any inner point of the ends, every third inner
-    # point of the crossed edges; the cheapest chain of valid pieces (shortest total length) wins
-    options = [inner(first)] + [inner(edge)[::3] or inner(edge) for edge, _ in path] + [inner(second)]
-    best: dict = {p: (0.0, None) for p in options[0]}  # point -> (length so far, previous point)
-    steps = []
-    for k, face in enumerate(faces):
-        here, there = chain[k], chain[k + 1]
-        pairs = sorted((best[p][0] + math.hypot(q[0] - p[0], q[1] - p[1]), p, q)
-                       for p in best for q in options[k + 1] if q != p)
-        reached: dict = {}
-        for total, p, q in pairs:
-            if q in reached:
-                continue
-            if into_face(here, lines[here].index(p), q, face) and into_face(there, lines[there].index(q), p, face) \
-                    and clear(p, q):
-                reached[q] = (total, p, [])
-        if not reached and face == root:
-            # across the outer face: out from one edge, round the drawing in the margin, and in
-            round_ = _around(lines[here], lines[there], everything, canvas, clear)
-            if round_ is not None and (k == 0 or round_[0] in best):
-                length = sum(math.hypot(b[0] - a[0], b[1] - a[1]) for a, b in zip(round_, round_[1:]))
-                reached[round_[-1]] = (best.get(round_[0], (0.0,))[0] + length, round_[0], round_[1:-1])
-                if k == 0:
-                    best = {round_[0]: (0.0, None)}
-        steps.append(reached)
-        best = reached
-        if not best:
-            break
-    if not best:
+    # found in the layout's own units, as the frame after the band is drawn from it (movies.draw.frames)
+    lines = {edge: sample(curve) for edge, curve in drawn.curves.items()}
+    found = band_core(diagram, band, lines, root)
+    if found is None:
         return [], []
-    q = min(best, key=lambda point: best[point][0])
-    pieces = []
-    for reached in reversed(steps):
-        _, p, via = reached[q]
-        pieces.append([p] + via + [q])
-        q = p
-    pieces.reverse()
-    core, crossed_at = list(pieces[0]), []
-    for piece in pieces[1:]:
-        crossed_at.append(len(core) - 1)  # the point where the core meets a crossed edge
-        core += piece[1:]
+    core, crossed_at = [canvas(p) for p in found[0]], found[1]
     edges = " ".join(map(str, chain))
     under = _strip(core, stroke, f'class="band" data-edges="{edges}" data-face="{faces[0]}" '
                                  f'data-faces="{" ".join(map(str, faces))}"')
@@ -566,43 +509,6 @@ def _strip(core, stroke: float, attributes: str) -> list[str]:
             f'stroke-width="{_num(stroke * 3.8)}" stroke-linejoin="round"/>',
             f'<path class="band-core" d="{d}" fill="none" stroke="{HIGHLIGHT_EDGE}" stroke-width="{_num(stroke * 0.6)}" '
             f'stroke-dasharray="{_num(stroke * 2)} {_num(stroke * 1.5)}"/>']
-
-
-def _around(first: list, second: list, lines: list, canvas: _Canvas, clear) -> list | None:
-    """A core for a band across the outer face: out from the outermost point of one edge, around
-    the drawing in the margin, and in to the outermost point of the other; None if a piece of it
-    would cross a strand."""
-    points = [p for line in lines for p in line]
-    cx = sum(p[0] for p in points) / len(points)
-    cy = sum(p[1] for p in points) / len(points)
-    radius = max(math.hypot(p[0] - cx, p[1] - cy) for p in points) + canvas.pad * 0.5
-    def outer_part(line):  # away from the edge's ends, and near the outside of the drawing
-        inner = line[len(line) // 6:len(line) - len(line) // 6] or line
-        far = max(math.hypot(t[0] - cx, t[1] - cy) for t in inner)
-        return [t for t in inner if math.hypot(t[0] - cx, t[1] - cy) >= 0.85 * far]
-
-    def angle(t):
-        return math.atan2(t[1] - cy, t[0] - cx)
-
-    def turn_between(u, v):  # the shorter way round
-        return (angle(v) - angle(u) + math.pi) % (2 * math.pi) - math.pi
-
-    p, q = min(((u, v) for u in outer_part(first) for v in outer_part(second)),
-               key=lambda pair: abs(turn_between(*pair)))
-    a, turn = angle(p), turn_between(p, q)
-    steps = max(2, int(abs(turn) / 0.15))
-    arc = [(cx + radius * math.cos(a + turn * k / steps), cy + radius * math.sin(a + turn * k / steps))
-           for k in range(steps + 1)]
-    core = [p] + arc + [q]
-    return core if all(clear(u, v) for u, v in zip(core, core[1:])) else None
-
-
-def _segments_cross(p, q, a, b) -> bool:
-    """Whether the segments pq and ab cross at a point inside both."""
-    def side(u, v, w):
-        return (v[0] - u[0]) * (w[1] - u[1]) - (v[1] - u[1]) * (w[0] - u[0])
-
-    return (side(p, q, a) * side(p, q, b) < 0) and (side(a, b, p) * side(a, b, q) < 0)
 
 
 def _at_fraction(points: list[tuple[float, float]], fraction: float):
@@ -695,7 +601,7 @@ def _segment_meets_box(a, b, box) -> bool:
     if x0 <= a[0] <= x1 and y0 <= a[1] <= y1:
         return True
     corners = [(x0, y0), (x1, y0), (x1, y1), (x0, y1)]
-    return any(_segments_cross(a, b, c, d) for c, d in zip(corners, corners[1:] + corners[:1]))
+    return any(segments_cross(a, b, c, d) for c, d in zip(corners, corners[1:] + corners[:1]))
 
 
 def label_size(text: str, font: float) -> tuple[float, float]:

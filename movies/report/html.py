@@ -18,7 +18,7 @@ from __future__ import annotations
 from html import escape
 
 from movies.checker.result import CheckResult
-from movies.draw.layout import frame_layouts
+from movies.draw.frames import NEW_DIAGRAM, frame_layouts
 from movies.draw.svg import diagram_svg
 from movies.report.movie import as_json, finding_lines, step_note, surface_lines
 from movies.draw.svg import Highlight
@@ -93,6 +93,29 @@ def _twist_box(frame, record):
     return Gate(tuple(record.edges), "L" if faces[0] == left else "R"), record.turns
 
 
+def frame_steps(result: CheckResult) -> list:
+    """For each step of a checked movie, what the pictures of its frames need to know (see
+    :func:`movies.draw.frames.frame_layouts`): the band it adds, as (first edge, second edge,
+    faces, path), unless it has half twists (its sides cross); ``NEW_DIAGRAM`` for an isotopy
+    claim, whose frame after is the diagram it names; else None.
+
+    >>> from pathlib import Path
+    >>> from movies.checker.replay import check_movie
+    >>> examples = Path(__file__).resolve().parents[2] / "examples" / "movies"
+    >>> frame_steps(check_movie(examples / "6_1-ribbon-along-a-path.movie"))[:2]
+    [(1, 4, (1, 6), ((11, True),)), None]
+    """
+    steps: list = []
+    for statement, places in zip(result.movie.steps, result.places):
+        record = statement.record
+        step = NEW_DIAGRAM if statement.kind == "isotopic" else None
+        if record is not None and record.kind == "band" and places is not None and places.faces and not record.twists:
+            path = tuple(record.path or ())
+            step = (record.first, record.second, tuple(places.faces) if path else (places.faces[0],), path)
+        steps.append(step)
+    return steps
+
+
 def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
     out = ['<input type="checkbox" id="mv-strip" class="mv-strip-toggle">'
            '<label for="mv-strip" class="mv-strip-label">show the frames side by side, small</label>',
@@ -103,7 +126,7 @@ def _frames(result: CheckResult, data: dict, size: int) -> list[str]:
     statements = result.movie.steps
     records = {s["step"]: s for s in data["steps"]}
     stops = {f["step"]: f for f in data["findings"] if f["kind"] == "invalid"}
-    lays = frame_layouts(result.frames)
+    lays = frame_layouts(result.frames, frame_steps(result))
     for index, frame in enumerate(result.frames):
         number = index + 1  # the step that acts on this frame
         statement = statements[index] if index < len(statements) else None

@@ -78,7 +78,7 @@ def test_a_diagram_that_is_not_a_closed_braid_is_drawn_as_before():
 
 def test_frames_derived_from_a_braid_stay_braided_while_they_can():
     from movies.checker.replay import check_movie
-    from movies.draw.layout import frame_layouts
+    from movies.draw.frames import frame_layouts
 
     text = "start braid(3)[1, 1, 1, 2]\nR1 remove 4\nexpect crossings 3\n"
     result = check_movie(text)

@@ -12,6 +12,7 @@ import pytest
 
 from draw.readback import read_svg
 from movies.checker.replay import check_movie
+import movies.draw.frames as frames_module
 import movies.draw.layout as layout_module
 from movies.report.html import movie_html
 
@@ -21,7 +22,10 @@ MOVIES = ["trefoil-concordance", "3_1-disk-in-punctured-CP2", "mirror-5_1-least-
 
 
 def _mean_displacement(name: str) -> float:
-    """The mean over consecutive frames of the mean move of their shared crossings, over the width."""
+    """The mean over consecutive frames of the mean move of their shared crossings, over the width.
+
+    The frame after an isotopy claim is the diagram the claim names: its crossings are its own,
+    whatever their names, so no crossing is shared across such a step."""
     result = check_movie(EXAMPLES / f"{name}.movie")
     svgs = re.findall(r'<svg xmlns="http://www.w3.org/2000/svg" class="diagram".*?</svg>', movie_html(result), re.S)
     points = []
@@ -30,8 +34,8 @@ def _mean_displacement(name: str) -> float:
         width = float(re.search(r'width="([0-9.]+)"', text).group(1))
         points.append(({c: strands[frame.over_edges(c)[0]]["points"][-1] for c in frame.crossings}, width))
     moves = []
-    for (before, width), (after, _) in zip(points, points[1:]):
-        shared = set(before) & set(after)
+    for step, ((before, width), (after, _)) in enumerate(zip(points, points[1:])):
+        shared = set(before) & set(after) if result.movie.steps[step].kind != "isotopic" else set()
         if shared:
             moves.append(statistics.mean(math.dist(before[c], after[c]) for c in shared) / width)
     return statistics.mean(moves)
@@ -40,6 +44,7 @@ def _mean_displacement(name: str) -> float:
 def test_frames_are_turned_and_settled_toward_the_frame_before(monkeypatch):
     kept = [_mean_displacement(name) for name in MOVIES]
     layout = layout_module.layout
+    monkeypatch.setattr(frames_module, "band_layout", lambda *args: None)
     monkeypatch.setattr(layout_module, "layout", lambda diagram, previous=None: layout(diagram))
     monkeypatch.setattr(layout_module, "aligned", lambda lay, previous: lay)
     monkeypatch.setattr(layout_module, "settled", lambda diagram, lay, previous: lay)
