@@ -49,7 +49,6 @@ STEPS_PER_EDGE = 4
 #: a frame drawn from the band before it is kept only if it is at least this readable (see ``_quality``)
 BAND_QUALITY = 0.5
 
-
 #: a step whose frame after is a diagram of its own (an isotopy claim names it): laid out afresh
 NEW_DIAGRAM = "new"
 
@@ -96,8 +95,8 @@ def band_layout(before: Diagram, lay: Layout | None, after: Diagram, band: tuple
     """The frame after a band, drawn from the frame before: the same points for every strand the
     band leaves alone, and the band's two sides along its core as the new strands.
 
-    The core is found as the picture of the band step draws it (:func:`band_core`, here on the
-    layout's own polylines); the two ends of the band cut their edges, the sides cut each edge
+    The core is found as the picture of the band step draws it (:func:`band_core` on the curves
+    as drawn), with room for the band's width where it can; the two ends of the band cut their edges, the sides cut each edge
     the band crosses twice (the new crossings), and the pieces are matched to the new diagram's
     edges by walking them from the crossings the two frames share. Everything is checked: every
     edge met from both ends as the new diagram says, the new crossings met in PD order, nothing
