@@ -1,4 +1,4 @@
-"""A browser opens the report of a bundled movie: it renders, and it shows one drawing per frame.
+"""A browser opens the report of every bundled movie: it renders, and it shows one drawing per frame.
 
 Needs headless Chromium (Debian packages ``chromium`` and ``chromium-driver``); skipped without it.
 """
@@ -73,12 +73,17 @@ def decode_png(data: bytes) -> tuple[int, int, list[bytes]]:
     return width, height, rows
 
 
-@pytest.fixture(scope="module")
-def report(tmp_path_factory) -> tuple[Path, int]:
-    folder = tmp_path_factory.mktemp("report")
-    result = check_movie(parse_movie(EXAMPLE.read_text()))
+EXAMPLES = sorted(EXAMPLE.parent.glob("*.movie"))
+
+
+@pytest.fixture(scope="module", params=[path.stem for path in EXAMPLES])
+def report(request, tmp_path_factory) -> tuple[Path, int]:
+    # every bundled example's report, one at a time
+    folder = tmp_path_factory.mktemp(request.param)
+    path = EXAMPLE.parent / f"{request.param}.movie"
+    result = check_movie(parse_movie(path.read_text()))
     page = folder / "report.html"
-    page.write_text(movie_html(result, source="examples/movies/square-knot-ribbon.movie"), encoding="utf-8")
+    page.write_text(movie_html(result, source=f"examples/movies/{path.name}"), encoding="utf-8")
     return page, len(result.frames)
 
 
@@ -90,6 +95,8 @@ def test_the_report_has_one_drawing_per_frame_in_the_browser(report, tmp_path):
     assert "VERDICT" in dom
     # the DOM the browser built, after parsing: one <svg> per frame, each with its strands
     assert len(re.findall(r"<svg\b", dom)) == frames
+    drawings = re.findall(r"<svg\b.*?</svg>", dom, re.S)
+    assert all('class="strand"' in drawing or 'data-crossings="0"' in drawing for drawing in drawings)
     assert len(re.findall(r'class="strand"', dom)) > 0
 
 
