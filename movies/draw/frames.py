@@ -46,8 +46,20 @@ KEPT = 0.7
 #: the strands of a frame drawn from a band get points about this many to a typical edge
 STEPS_PER_EDGE = 4
 
+#: and leave their crossings along a first step at least this many of those long (or a quarter
+#: of their length): the under-strand's gap is cut from it
+TIDY = 0.45
+
 #: a frame drawn from the band before it is kept only if it is at least this readable (see ``_quality``)
 BAND_QUALITY = 0.5
+
+#: and only if every face has a disk of this radius inside it, room for its name
+FACE_ROOM = 0.03
+
+#: and only if every under-strand's gap is at least this wide (a pixel or two at the default size;
+#: the narrowest of a table knot's picture up to 9 crossings is 0.0099); a frame laid out from the
+#: one before whose gap is narrower is laid out alone if that opens it
+SMALLEST_GAP = 0.006
 
 #: a step whose frame after is a diagram of its own (an isotopy claim names it): laid out afresh
 NEW_DIAGRAM = "new"
@@ -84,11 +96,21 @@ def frame_layouts(frames, steps=None) -> list[Layout]:
             previous = None
         drawn = band_layout(frames[index - 1], previous, frame, step) if isinstance(step, tuple) else None
         if drawn is None:
-            drawn = layout_module.settled(frame, layout_module.aligned(layout_module.layout(frame, previous), previous),
-                                          previous)
+            drawn = _from(frame, previous, previous)
+            if previous is not None and frame.crossings and strands(frame, drawn).smallest_gap < SMALLEST_GAP:
+                # held to the frame before, an under-strand's gap all but closed (kinks and small faces
+                # a band leaves crowd it): the frame laid out alone, then turned toward the one before
+                alone = _from(frame, None, previous)
+                if strands(frame, alone).smallest_gap > strands(frame, drawn).smallest_gap:
+                    drawn = alone
         previous = drawn
         out.append(drawn)
     return out
+
+
+def _from(frame: Diagram, start: Layout | None, previous: Layout | None) -> Layout:
+    """The frame laid out from ``start`` (or alone), turned and settled toward ``previous``."""
+    return layout_module.settled(frame, layout_module.aligned(layout_module.layout(frame, start), previous), previous)
 
 
 def band_layout(before: Diagram, lay: Layout | None, after: Diagram, band: tuple) -> Layout | None:
@@ -144,7 +166,8 @@ def band_layout(before: Diagram, lay: Layout | None, after: Diagram, band: tuple
     # the band's sides stay within the room its core keeps from the strands
     for fraction in [f for f in BAND_HALF_WIDTHS if f < room] or [BAND_HALF_WIDTHS[-1]]:
         drawn = _with_band(before, lay, after, band, core, fraction * typical, step, lines)
-        if drawn is not None and _quality(after, drawn) >= BAND_QUALITY:
+        if drawn is not None and _quality(after, drawn) >= BAND_QUALITY \
+                and strands(after, drawn).smallest_gap >= SMALLEST_GAP:
             return drawn
     return None
 
@@ -329,7 +352,7 @@ def _with_band(before: Diagram, lay: Layout, after: Diagram, band: tuple, core: 
         return None
     crossings, edges = drawn
     edges = {edge: _tidied(_thinned(_untangled(points), min(step / 3, _length(points) / 8)),
-                           min(0.25 * step, _length(points) / 5)) for edge, points in edges.items()}
+                           min(TIDY * step, _length(points) / 4)) for edge, points in edges.items()}
     built = _pictured(after, lay, crossings, edges)
     if built is None or (_quality(after, built) >= 1 and _closest(built.edges) >= SPREAD_ROOM * half):
         return built
@@ -380,7 +403,9 @@ def _pictured(after: Diagram, lay: Layout, crossings: dict[int, Point], edges: d
                 return None
             outer, face_points[face] = face, OUTER_LABEL
         else:
-            face_points[face] = inscribed_disk(polygon)[0]
+            face_points[face], room = inscribed_disk(polygon)
+            if room < FACE_ROOM:
+                return None  # a sliver of a face, too thin for its name: the frame is laid out anew
     if outer is None:
         return None
     around = frozenset(side.edge for cycle in after.faces[outer] for side in cycle)

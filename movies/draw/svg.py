@@ -570,27 +570,45 @@ class _Room:
         return not any(_segment_meets_box(a, b, padded) for cell in self._cells(padded)
                        for a, b in self.grid.get(cell, ()))
 
-    def place(self, candidates, size, near=None) -> tuple[float, float]:
+    def place(self, candidates, size, near=None, within=None) -> tuple[float, float]:
         """The first candidate centre whose box meets no label and no strand; else, among the
         ``near`` candidates, the first that meets no label; else the nearest place on rings around
-        the first candidate that meets no label (and no strand, if one does). Taken."""
+        the first candidate that meets no label (and no strand, if one does). With ``within`` (a
+        test of a centre), only places it passes, and the first candidate when none does. Taken."""
         w, h = size
 
         def box(c):
             return (c[0] - w / 2, c[1] - h / 2, c[0] + w / 2, c[1] + h / 2)
 
-        chosen = next((c for c in candidates if self.free(box(c))), None)
+        def allowed(places):
+            return [c for c in places if within is None or within(c)]
+
+        chosen = next((c for c in allowed(candidates) if self.free(box(c))), None)
         if chosen is None:
-            chosen = next((c for c in (near or []) if self.free(box(c), strands=False)), None)
+            chosen = next((c for c in allowed(near or []) if self.free(box(c), strands=False)), None)
         if chosen is None:
             # crowded: step outwards from the first candidate until no other label is in the way
             x, y = candidates[0]
-            rings = [(x + dx * r * w, y + dy * r * h) for r in (0.5, 1, 1.5, 2, 3, 4, 6, 8)
-                     for dx, dy in ((0, 1), (0, -1), (1, 0), (-1, 0), (1, 1), (-1, 1), (1, -1), (-1, -1))]
+            rings = allowed([(x + dx * r * w, y + dy * r * h) for r in (0.5, 1, 1.5, 2, 3, 4, 6, 8)
+                             for dx, dy in ((0, 1), (0, -1), (1, 0), (-1, 0), (1, 1), (-1, 1), (1, -1), (-1, -1))])
             chosen = next((c for c in rings if self.free(box(c))), None) or \
                 next((c for c in rings if self.free(box(c), strands=False)), candidates[0])
         self.boxes.append((chosen[0] - w / 2, chosen[1] - h / 2, chosen[0] + w / 2, chosen[1] + h / 2))
         return chosen
+
+
+def _inside(point, polygon) -> bool:
+    """Whether a point lies inside a polygon (the even-odd rule).
+
+    >>> _inside((1, 1), [(0, 0), (2, 0), (2, 2), (0, 2)]), _inside((3, 1), [(0, 0), (2, 0), (2, 2), (0, 2)])
+    (True, False)
+    """
+    x, y = point
+    inside = False
+    for (ax, ay), (bx, by) in zip(polygon, polygon[1:] + polygon[:1]):
+        if (ay > y) != (by > y) and x < ax + (y - ay) * (bx - ax) / (by - ay):
+            inside = not inside
+    return inside
 
 
 def _segment_meets_box(a, b, box) -> bool:
@@ -625,10 +643,14 @@ def _labels(diagram, lay, drawn, canvas, colour_of, stroke) -> list[str]:
     root = drawn_outside(diagram, lay)
     for face, point in sorted(lay.face_points.items()):
         cycles = diagram.faces[face]
+        within = None
         if face != root and len(cycles) == 1:
             # the rounded curves cut corners: look for room inside the face as drawn
             polygon = _cycle_points(diagram, cycles[0], drawn.curves)
             point, _ = inscribed_disk(polygon[::3] if len(polygon) > 60 else polygon, point, rounds=2)
+            # a small face's name stays inside it, on a strand if it must, never in the next face
+            outline = [canvas(p) for p in polygon]
+            within = lambda c, outline=outline: _inside(c, outline)  # noqa: E731
         x, y = canvas(point)
         step = font * 0.9
         candidates = [(x, y)] + [(x + dx * step, y + dy * step) for dx, dy in
@@ -636,7 +658,7 @@ def _labels(diagram, lay, drawn, canvas, colour_of, stroke) -> list[str]:
         # where the face is too small for a label clear of its strands: clear of the other labels at least
         near = [(x + dx * step * f, y + dy * step * f) for f in (0.35, 0.7) for dx, dy in
                 ((0, 1), (0, -1), (1, 0), (-1, 0))]
-        x, y = room.place(candidates, label_size(str(face), font + 1), near=[(x, y)] + near)
+        x, y = room.place(candidates, label_size(str(face), font + 1), near=[(x, y)] + near, within=within)
         out.append(f'<text class="label-face" data-face="{face}" x="{_num(x)}" y="{_num(y + (font + 1) * 0.35)}" '
                    f'font-family="serif" font-style="italic" font-size="{font + 1}" text-anchor="middle" '
                    f'fill="#777777">{face}</text>')
