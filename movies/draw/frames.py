@@ -57,9 +57,12 @@ BAND_QUALITY = 0.5
 FACE_ROOM = 0.03
 
 #: and only if every under-strand's gap is at least this wide (a pixel or two at the default size;
-#: the narrowest of a table knot's picture up to 9 crossings is 0.0099); a frame laid out from the
-#: one before whose gap is narrower is laid out alone if that opens it
+#: the narrowest of a table knot's picture up to 9 crossings is 0.0099)
 SMALLEST_GAP = 0.006
+
+#: a frame laid out from the one before whose narrowest gap is under this (under half a pixel at
+#: the report's size: the gap can no longer be seen) is laid out alone if that opens it
+CLOSING_GAP = 0.006
 
 #: a step whose frame after is a diagram of its own (an isotopy claim names it): laid out afresh
 NEW_DIAGRAM = "new"
@@ -97,11 +100,15 @@ def frame_layouts(frames, steps=None) -> list[Layout]:
         drawn = band_layout(frames[index - 1], previous, frame, step) if isinstance(step, tuple) else None
         if drawn is None:
             drawn = _from(frame, previous, previous)
-            if previous is not None and frame.crossings and strands(frame, drawn).smallest_gap < SMALLEST_GAP:
-                # held to the frame before, an under-strand's gap all but closed (kinks and small faces
-                # a band leaves crowd it): the frame laid out alone, then turned toward the one before
+            # after a band not drawn from it, a picture held to the frame before (only one of one
+            # piece is) can have an under-strand's gap all but closed by the kinks and small faces
+            # the band leaves: then the frame laid out alone, turned toward the one before, if that
+            # opens it
+            held = isinstance(step, tuple) and previous.bounds == ONE_PIECE == drawn.bounds and frame.crossings
+            narrowest = strands(frame, drawn).smallest_gap if held else 1.0
+            if narrowest < CLOSING_GAP:
                 alone = _from(frame, None, previous)
-                if strands(frame, alone).smallest_gap > strands(frame, drawn).smallest_gap:
+                if strands(frame, alone).smallest_gap > narrowest:
                     drawn = alone
         previous = drawn
         out.append(drawn)
@@ -111,6 +118,7 @@ def frame_layouts(frames, steps=None) -> list[Layout]:
 def _from(frame: Diagram, start: Layout | None, previous: Layout | None) -> Layout:
     """The frame laid out from ``start`` (or alone), turned and settled toward ``previous``."""
     return layout_module.settled(frame, layout_module.aligned(layout_module.layout(frame, start), previous), previous)
+
 
 
 def band_layout(before: Diagram, lay: Layout | None, after: Diagram, band: tuple) -> Layout | None:
