@@ -60,8 +60,8 @@ FACE_ROOM = 0.03
 #: the narrowest of a table knot's picture up to 9 crossings is 0.0099)
 SMALLEST_GAP = 0.006
 
-#: a frame laid out from the one before whose narrowest gap is under this (under half a pixel at
-#: the report's size: the gap can no longer be seen) is laid out alone if that opens it
+#: after a band, a frame laid out from the one before whose narrowest gap is under this (under a
+#: pixel at the report's size: the gap is all but gone) is laid out alone if that opens it
 CLOSING_GAP = 0.006
 
 #: a step whose frame after is a diagram of its own (an isotopy claim names it): laid out afresh
