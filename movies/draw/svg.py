@@ -574,25 +574,28 @@ class _Room:
         """The first candidate centre whose box meets no label and no strand; else, among the
         ``near`` candidates, the first that meets no label; else the nearest place on rings around
         the first candidate that meets no label (and no strand, if one does). With ``within`` (a
-        test of a centre), only places it passes, and the first candidate when none does. Taken."""
+        test of a centre): a place it fails gives way to the first that passes it and meets no
+        label, if there is one. Taken."""
         w, h = size
 
         def box(c):
             return (c[0] - w / 2, c[1] - h / 2, c[0] + w / 2, c[1] + h / 2)
 
-        def allowed(places):
-            return [c for c in places if within is None or within(c)]
-
-        chosen = next((c for c in allowed(candidates) if self.free(box(c))), None)
+        x, y = candidates[0]
+        rings = [(x + dx * r * w, y + dy * r * h) for r in (0.5, 1, 1.5, 2, 3, 4, 6, 8)
+                 for dx, dy in ((0, 1), (0, -1), (1, 0), (-1, 0), (1, 1), (-1, 1), (1, -1), (-1, -1))]
+        chosen = next((c for c in candidates if self.free(box(c))), None)
         if chosen is None:
-            chosen = next((c for c in allowed(near or []) if self.free(box(c), strands=False)), None)
+            chosen = next((c for c in (near or []) if self.free(box(c), strands=False)), None)
         if chosen is None:
             # crowded: step outwards from the first candidate until no other label is in the way
-            x, y = candidates[0]
-            rings = allowed([(x + dx * r * w, y + dy * r * h) for r in (0.5, 1, 1.5, 2, 3, 4, 6, 8)
-                             for dx, dy in ((0, 1), (0, -1), (1, 0), (-1, 0), (1, 1), (-1, 1), (1, -1), (-1, -1))])
             chosen = next((c for c in rings if self.free(box(c))), None) or \
                 next((c for c in rings if self.free(box(c), strands=False)), candidates[0])
+        if within is not None and not within(chosen):
+            # a face's name in the face, on a strand if it must, rather than in the next face
+            chosen = next((c for c in [*candidates, *(near or []), *rings] if within(c) and self.free(box(c))), None) \
+                or next((c for c in [*candidates, *(near or []), *rings] if within(c) and self.free(box(c), strands=False)),
+                        chosen)
         self.boxes.append((chosen[0] - w / 2, chosen[1] - h / 2, chosen[0] + w / 2, chosen[1] + h / 2))
         return chosen
 
