@@ -26,7 +26,7 @@ import math
 import numpy as np
 
 from movies.diagram.model import Diagram
-from movies.draw.geometry import Point, clear_of, segments_cross
+from movies.draw.geometry import Point, clear_of, polyline_length as _length, segments_cross
 
 #: how far beyond the drawing a band across the outer face runs, as a fraction of the median
 #: edge's length (the same in a layout's units and on the SVG canvas)
@@ -295,9 +295,6 @@ def _through_face(diagram: Diagram, face: int, start: tuple, end: tuple, lines: 
             reached[nodes[k]] = (float(distance[k]), nodes[at], via[::-1])
     return reached
 
-
-def _length(line: list[Point]) -> float:
-    return sum(math.dist(p, q) for p, q in zip(line, line[1:]))
 
 
 def _roomy(starts: np.ndarray, ends: np.ndarray, lines: list[list[Point]], room: float) -> np.ndarray:

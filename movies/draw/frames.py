@@ -27,7 +27,8 @@ from movies.diagram.model import Diagram
 from movies.draw import layout as layout_module
 from movies.draw.bands import band_core
 from movies.draw.curves import strands
-from movies.draw.geometry import Point, counterclockwise, crossings_between, sample, segments_cross
+from movies.draw.geometry import (Point, counterclockwise, crossings_between, polyline_length as _length, sample,
+                                  segments_cross)
 from movies.draw.layout import (OUTER_LABEL, ONE_PIECE, Layout, _in_pd_order, _polygon, _quality, drawn_outside,
                                 inscribed_disk)
 
@@ -223,9 +224,6 @@ def _cut(line: list[Point], start: float, end: float) -> list[Point]:
         walked = b
     return [p for k, p in enumerate(out) if k == 0 or math.dist(p, out[k - 1]) > 1e-12]
 
-
-def _length(line: list[Point]) -> float:
-    return sum(math.dist(p, q) for p, q in zip(line, line[1:]))
 
 
 def _side_lines(core: list[Point], half: float) -> tuple[list[Point], list[Point]]:
@@ -602,7 +600,7 @@ def _spread(diagram: Diagram, crossings: dict[int, Point], edges: dict[int, list
         return ({name: points[index[name]] for name in names},
                 {edge: [points[i] for i in chain] for edge, chain in ids.items()})
 
-    # pairs of inner points of different edges: those closer than ROOM steps push each other apart
+    # pairs of inner points of different edges: those closer than SPREAD_ROOM half widths push each other apart
     owner = np.full(len(pts), -1)
     for k, (edge, chain) in enumerate(sorted(ids.items())):
         owner[chain[1:-1]] = k

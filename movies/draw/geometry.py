@@ -240,3 +240,12 @@ def clear_of(starts: np.ndarray, ends: np.ndarray, lines: list[list[Point]], chu
         hit = (side(u, v, a[None]) * side(u, v, b[None]) < 0) & (side(a[None], b[None], u) * side(a[None], b[None], v) < 0)
         clear[start:start + rows] = ~hit.any(axis=1)
     return clear
+
+
+def polyline_length(line: list[Point]) -> float:
+    """The length of a polyline.
+
+    >>> polyline_length([(0, 0), (3, 4), (3, 5)])
+    6.0
+    """
+    return sum(math.dist(p, q) for p, q in zip(line, line[1:]))

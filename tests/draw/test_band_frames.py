@@ -10,6 +10,7 @@ from pathlib import Path
 import pytest
 
 from draw.readback import check_drawing, parse_path, read_svg
+from draw.test_band_drawn import _near
 from movies.checker.replay import check_movie
 from movies.draw.frames import NEW_DIAGRAM, band_layout, frame_layouts
 from movies.draw.layout import layout
@@ -23,15 +24,6 @@ EXAMPLES = Path(__file__).resolve().parents[2] / "examples" / "movies"
 DRAWN_FROM_THE_BAND = ["5_2-sum-ribbon", "5_2-to-5_1-genus-one", "6_1-ribbon-along-a-path", "8_20-ribbon",
                        "mirror-5_1-least-genus-in-a-blowup", "mistake-false-checkpoint", "mistake-false-isotopy",
                        "square-knot-ribbon"]
-
-
-def _near(point, polyline) -> float:
-    best = math.inf
-    for (ax, ay), (bx, by) in zip(polyline, polyline[1:]):
-        dx, dy = bx - ax, by - ay
-        t = max(0.0, min(1.0, ((point[0] - ax) * dx + (point[1] - ay) * dy) / (dx * dx + dy * dy or 1)))
-        best = min(best, math.hypot(point[0] - ax - t * dx, point[1] - ay - t * dy))
-    return best
 
 
 def _report(name):
